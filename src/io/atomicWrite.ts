@@ -1,0 +1,92 @@
+/**
+ * Nothing is lost: every output goes to a temporary file in the destination's
+ * folder and is renamed into place only when complete. An existing file is
+ * replaced only with `force`; a path that is also an input is refused.
+ */
+import { closeSync, existsSync, fsyncSync, openSync, renameSync, unlinkSync, writeSync, realpathSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
+import { InputError } from '../core/errors.js';
+
+/** Options of {@link writeFileAtomic}. */
+export interface AtomicWriteOptions {
+  /** Replace an existing file (default false: refuse). */
+  force?: boolean;
+  /** Paths that are inputs of the current job; writing over one is refused. */
+  inputs?: readonly string[];
+}
+
+const pending = new Set<string>();
+
+/** Temporary files not yet renamed, for the interrupt handler to delete. */
+export function pendingTemporaryFiles(): string[] {
+  return [...pending];
+}
+
+/** Deletes every temporary file still pending (called on SIGINT/SIGTERM). */
+export function removePendingTemporaryFiles(): void {
+  for (const p of pending) {
+    try { unlinkSync(p); } catch { /* already gone */ }
+    pending.delete(p);
+  }
+}
+
+function samePath(a: string, b: string): boolean {
+  const ra = resolve(a), rb = resolve(b);
+  if (ra === rb) return true;
+  try { return realpathSync(ra) === realpathSync(rb); } catch { return false; }
+}
+
+/** Throws unless `path` may be written under the given options. */
+export function checkWritable(path: string, options: AtomicWriteOptions = {}): void {
+  for (const input of options.inputs ?? []) {
+    if (samePath(path, input)) {
+      throw new InputError('is an input of this job and is never overwritten', { file: path }, 'choose another output path');
+    }
+  }
+  if (!options.force && existsSync(path)) {
+    throw new InputError('exists already', { file: path }, 'pass --force to replace it, or choose another output path');
+  }
+}
+
+/**
+ * Writes `data` (bytes, a string as UTF-8, or a sequence of byte chunks) to
+ * `path` through a temporary file in the same folder and a rename.
+ * `writer` is injectable so tests can simulate a failing disk.
+ */
+export function writeFileAtomic(
+  path: string,
+  data: Uint8Array | string | Iterable<Uint8Array>,
+  options: AtomicWriteOptions & { writer?: (fd: number, chunk: Uint8Array) => void } = {},
+): void {
+  checkWritable(path, options);
+  const dir = dirname(path);
+  const tmp = join(dir, `.${basename(path)}.${process.pid}.${Date.now().toString(36)}.tmp`);
+  const write = options.writer ?? ((fd: number, chunk: Uint8Array) => {
+    let off = 0;
+    while (off < chunk.length) off += writeSync(fd, chunk, off, chunk.length - off);
+  });
+  let fd: number;
+  try {
+    fd = openSync(tmp, 'wx');
+  } catch (e) {
+    throw new InputError(`cannot write here: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path },
+      'check that the folder exists and is writable');
+  }
+  pending.add(tmp);
+  try {
+    const chunks: Iterable<Uint8Array> = typeof data === 'string' ? [Buffer.from(data, 'utf8')]
+      : data instanceof Uint8Array ? [data] : data;
+    for (const c of chunks) write(fd, c);
+    fsyncSync(fd);
+    closeSync(fd);
+    renameSync(tmp, path);
+    pending.delete(tmp);
+  } catch (e) {
+    try { closeSync(fd); } catch { /* closed */ }
+    try { unlinkSync(tmp); } catch { /* gone */ }
+    pending.delete(tmp);
+    if (e instanceof InputError) throw e;
+    throw new InputError(`writing failed: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`, { file: path },
+      'free disk space or choose another folder; earlier outputs are intact');
+  }
+}

@@ -1,0 +1,2 @@
+/** skyspan's version, as in package.json. */
+export const VERSION = '0.1.0';
