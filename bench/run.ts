@@ -1,0 +1,24 @@
+/**
+ * `npm run bench`: every benchmark, each running its reference in the same run
+ * and printing the ratio. Pass names to run a subset: `npm run bench -- factors`.
+ * Speed and memory are measured here, never asserted in tests.
+ */
+const suites: Record<string, () => Promise<unknown>> = {
+  sphere: async () => (await import('./sphere.js')).benchSphere(),
+  read: async () => (await import('./readMap.js')).benchReadMap(),
+  factors: async () => (await import('./factors.js')).benchFactors(),
+  templates: async () => (await import('./templates.js')).benchTemplates(),
+};
+
+const wanted = process.argv.slice(2);
+const names = wanted.length ? wanted : Object.keys(suites);
+for (const name of names) {
+  const run = suites[name];
+  if (!run) {
+    console.error(`unknown benchmark '${name}'; known: ${Object.keys(suites).join(', ')}`);
+    process.exitCode = 2;
+    continue;
+  }
+  console.log(`\n== ${name} ==`);
+  await run();
+}
