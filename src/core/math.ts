@@ -40,7 +40,7 @@ export function angularDistance(lon1: number, lat1: number, lon2: number, lat2: 
 /** Wraps an angle in radians into [0, 2 pi). */
 export function wrapTwoPi(a: number): number {
   const r = a % TWO_PI;
-  return r < 0 ? r + TWO_PI : r === TWO_PI ? 0 : r;
+  return r < 0 ? r + TWO_PI : r === TWO_PI ? 0 : r + 0; // + 0 turns -0 into 0
 }
 
 /**
