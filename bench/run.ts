@@ -8,6 +8,8 @@ const suites: Record<string, () => Promise<unknown>> = {
   read: async () => (await import('./readMap.js')).benchReadMap(),
   factors: async () => (await import('./factors.js')).benchFactors(),
   templates: async () => (await import('./templates.js')).benchTemplates(),
+  render: async () => (await import('./render.js')).benchRender(),
+  physics: async () => (await import('./physics.js')).benchPhysics(),
 };
 
 const wanted = process.argv.slice(2);
