@@ -1,0 +1,135 @@
+/**
+ * `skyspan factors`: extrapolation factors of templates from a measured region
+ * to target regions, written as CSV, Markdown, JSON and LaTeX tables with
+ * provenance. Without --templates the shipped ensemble is used.
+ */
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { Command } from 'commander';
+import { InputError, UsageError } from '../../core/errors.js';
+import { parseRegionDocument } from '../../regions/document.js';
+import type { RegionDocument, RegionNode } from '../../regions/types.js';
+import { regionBaseDir } from '../../regions/catalogue.js';
+import { resample } from '../../maps/resample.js';
+import { loadShippedEnsemble } from '../../templates/ensemble.js';
+import { assertNside } from '../../sphere/nside.js';
+import { computeFactors } from '../../scaling/factors.js';
+import type { FactorTemplate } from '../../scaling/ensembleFactors.js';
+import { listTemplateFiles, readTemplateFiles } from '../../scaling/templateFiles.js';
+import { buildProvenance, hashInputs } from '../../scaling/provenance.js';
+import { renderFactorTables, TABLE_FORMATS, type TableFormat } from '../../scaling/tableText.js';
+import { writeFactorTables } from '../../scaling/writeTables.js';
+import type { CliIo } from '../main.js';
+
+interface Options {
+  regions: string; measured: string; target: string[]; templates?: string[]; weights?: string;
+  centre?: boolean; exposure: boolean; frame?: string; nside?: string; format: string; out?: string;
+  force?: boolean; json?: boolean;
+}
+
+/** Files a region document refers to (catalogues, exposure maps), resolved. */
+function referencedFiles(doc: RegionDocument, regionFile: string): string[] {
+  const base = regionBaseDir(regionFile, undefined);
+  const out = new Set<string>();
+  const walk = (n: RegionNode) => {
+    if (n.kind === 'sources') out.add(resolve(base, n.file));
+    if (n.kind === 'site' && n.weight.kind === 'map') out.add(resolve(base, n.weight.file));
+    if (n.kind === 'all' || n.kind === 'any') n.items.forEach(walk);
+    n.except.forEach(walk);
+  };
+  doc.regions.forEach(walk);
+  return [...out];
+}
+
+function parseFrame(v: string | undefined): 'galactic' | 'equatorial' | undefined {
+  if (v === undefined) return undefined;
+  if (v !== 'galactic' && v !== 'equatorial') throw new UsageError(`--frame is '${v}', expected galactic or equatorial`);
+  return v;
+}
+
+function parseFormats(v: string): TableFormat[] {
+  const fs = v.split(',').map((s) => s.trim()).filter(Boolean);
+  for (const f of fs) if (!TABLE_FORMATS.includes(f as TableFormat)) throw new UsageError(`--format '${f}' is not one of ${TABLE_FORMATS.join(', ')}`);
+  if (fs.length === 0) throw new UsageError('--format needs at least one of csv, md, json, tex');
+  return [...new Set(fs)] as TableFormat[];
+}
+
+async function action(o: Options, io: CliIo, argv: string[]): Promise<void> {
+  const frame = parseFrame(o.frame);
+  const formats = parseFormats(o.format);
+  const nside = o.nside === undefined ? undefined : Number(o.nside);
+  if (nside !== undefined) assertNside(nside, { keyPath: '--nside' });
+  let text: string;
+  try { text = readFileSync(o.regions, 'utf8'); } catch { throw new InputError('cannot be read', { file: o.regions }, 'check the --regions path'); }
+  const doc = parseRegionDocument(text, o.regions);
+  const inputs: { role: string; path: string }[] = [{ role: 'regions', path: o.regions },
+    ...referencedFiles(doc, o.regions).map((p) => ({ role: 'region data', path: p }))];
+  let templates: (FactorTemplate & { file?: string })[];
+  if (o.templates && o.templates.length) {
+    const files = listTemplateFiles(o.templates);
+    templates = readTemplateFiles(files, { frame });
+    inputs.push(...files.map((p) => ({ role: 'template', path: p })));
+  } else {
+    templates = loadShippedEnsemble().map((t) => ({ name: t.name, map: t.map, file: t.file }));
+    for (const t of templates) if (t.file) inputs.push({ role: 'template (shipped)', path: t.file });
+  }
+  if (o.weights !== undefined) {
+    const w = o.weights.split(',').map(Number);
+    if (w.length !== templates.length) {
+      throw new UsageError(`--weights has ${w.length} values for ${templates.length} templates (${templates.map((t) => t.name).join(', ')})`);
+    }
+    templates.forEach((t, i) => { t.weight = w[i]; });
+  }
+  const notes: string[] = [];
+  if (nside !== undefined) {
+    templates = templates.map((t) => {
+      if (t.map.nside <= nside) return t;
+      notes.push(`template '${t.name}' resampled from Nside ${t.map.nside} to ${nside} (pixel means)`);
+      return { ...t, map: resample(t.map, nside, { quantity: 'intensive' }).map };
+    });
+  }
+  const result = computeFactors({
+    templates, regions: doc, measured: o.measured, targets: o.target, mode: o.centre ? 'centre' : 'fraction',
+    exposureWeighted: o.exposure, assumeFrame: frame, requested: nside !== undefined ? { nside } : undefined,
+  });
+  result.notes.unshift(...notes);
+  const prov = buildProvenance(result, { inputs: hashInputs(inputs), regionSpec: doc.source, command: `skyspan ${argv.join(' ')}` });
+  const written = o.out
+    ? writeFactorTables(result, prov, { dir: o.out, formats, force: o.force, inputs: inputs.map((i) => i.path) })
+    : [];
+  for (const w of result.warnings) io.err(`skyspan: ${w}\n`);
+  if (o.json) {
+    io.out(JSON.stringify({ provenance: prov, rows: result.rows, summary: result.summary, regions: result.regions, written }, null, 2) + '\n');
+  } else if (!o.out) {
+    io.out(renderFactorTables(result, prov, 'md')[0].text);
+  } else {
+    for (const s of result.summary.filter((x) => x.quantity === 'kI' && x.plane === 0)) {
+      io.out(`k_I ${result.measured} -> ${s.target}: median ${s.median.toPrecision(4)} (16-84%: ${s.p16.toPrecision(4)}-${s.p84.toPrecision(4)}) over ${s.count} templates\n`);
+    }
+    io.out(`assumption: ${result.assumption}\n`);
+    for (const p of written) io.out(`wrote ${p}\n`);
+  }
+}
+
+/** Registers `skyspan factors`. */
+export function register(program: Command, io: CliIo): void {
+  program.command('factors')
+    .description('extrapolation factors of templates from a measured region to target regions, as tables with provenance')
+    .requiredOption('--regions <file>', 'region file (YAML or JSON)')
+    .requiredOption('--measured <name>', 'region where the measurement was made')
+    .requiredOption('--target <names...>', 'one or more target regions')
+    .option('--templates <paths...>', 'template FITS files or folders of them (default: the shipped ensemble)')
+    .option('--weights <list>', 'comma-separated template weights for the ensemble summary, in template order')
+    .option('--centre', 'count a pixel when its centre is inside (default: by covered fraction)')
+    .option('--no-exposure', 'ignore the exposure weighting of the measured region')
+    .option('--frame <frame>', 'frame of templates whose file does not state it: galactic or equatorial')
+    .option('--nside <n>', 'working Nside: finer templates are resampled down to it (lowers memory)')
+    .option('--format <list>', 'table formats: csv,md,json,tex', 'csv,md,json,tex')
+    .option('-o, --out <dir>', 'folder for the tables (default: print a Markdown table)')
+    .option('--force', 'replace existing tables')
+    .option('--json', 'print the result as JSON')
+    .addHelpText('after', '\nExample:\n  skyspan factors --regions regions.yaml --measured survey --target plane sky \\\n    --templates models/ --centre -o out/ --format csv,tex\n')
+    .action(async (o: Options, cmd: Command) => {
+      await action(o, io, (cmd.parent as unknown as { rawArgs?: string[] } | null)?.rawArgs ?? []);
+    });
+}

@@ -1,0 +1,51 @@
+/**
+ * Templates for a factor job from files and folders: each HEALPix FITS file
+ * (.fits, .fit, .fits.gz) named directly or found in a named folder (sorted
+ * by name, not recursive), one template per map column. Names are the file
+ * name without its extension, plus `:COLUMN` when a file holds several maps.
+ */
+import { readdirSync, statSync } from 'node:fs';
+import { basename, join } from 'node:path';
+import { InputError } from '../core/errors.js';
+import { readMapFile } from '../io/mapFile.js';
+import type { SkyMap } from '../maps/skyMap.js';
+import { assertMemoryFits } from './memory.js';
+
+const MAP_FILE = /\.(fits|fit|fts)(\.gz)?$/i;
+
+/** The map files named by `paths`: files as given, folders expanded. */
+export function listTemplateFiles(paths: string[]): string[] {
+  const out: string[] = [];
+  for (const p of paths) {
+    let st;
+    try { st = statSync(p); } catch { throw new InputError('does not exist', { file: p }, 'name a FITS file or a folder of them'); }
+    if (st.isDirectory()) {
+      const found = readdirSync(p).filter((n) => MAP_FILE.test(n)).sort().map((n) => join(p, n));
+      if (found.length === 0) throw new InputError('holds no .fits, .fit or .fits.gz file', { file: p });
+      out.push(...found);
+    } else out.push(p);
+  }
+  return out;
+}
+
+/** A loaded template and the file it came from. */
+export interface TemplateFromFile { name: string; map: SkyMap; file: string }
+
+/**
+ * Reads every template of `files`. Before reading an uncompressed file the
+ * memory it needs (about 3 times its size: the bytes and the decoded planes
+ * with headroom) is checked against the available memory; compressed files
+ * are not pre-checked (their size does not bound the decoded size).
+ */
+export function readTemplateFiles(files: string[], opts: { frame?: 'galactic' | 'equatorial'; memoryLimitBytes?: number } = {}): TemplateFromFile[] {
+  const out: TemplateFromFile[] = [];
+  for (const file of files) {
+    if (!/\.gz$/i.test(file)) {
+      assertMemoryFits(3 * statSync(file).size, `reading template ${file}`, NaN, opts.memoryLimitBytes);
+    }
+    const { maps } = readMapFile(file, opts.frame ? { frame: opts.frame } : {});
+    const stem = basename(file).replace(MAP_FILE, '');
+    for (const map of maps) out.push({ name: maps.length > 1 ? `${stem}:${map.column}` : stem, map, file });
+  }
+  return out;
+}
