@@ -6,7 +6,7 @@ import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { join, relative, resolve, dirname } from 'node:path';
 import { describe, expect, it } from 'vitest';
 
-const LAYERS = ['core', 'sphere', 'maps', 'io', 'regions', 'physics', 'templates', 'scaling', 'compare', 'render', 'plan', 'cli'];
+const LAYERS = ['core', 'sphere', 'maps', 'io', 'regions', 'physics', 'templates', 'scaling', 'compare', 'populations', 'render', 'plan', 'cli'];
 const SRC = resolve(__dirname, '..', 'src');
 
 function walk(dir: string): string[] {
