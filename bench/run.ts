@@ -10,6 +10,7 @@ const suites: Record<string, () => Promise<unknown>> = {
   templates: async () => (await import('./templates.js')).benchTemplates(),
   render: async () => (await import('./render.js')).benchRender(),
   physics: async () => (await import('./physics.js')).benchPhysics(),
+  peakMemory: async () => (await import('./peakMemory.js')).benchPeakMemory(),
 };
 
 const wanted = process.argv.slice(2);

@@ -1,7 +1,8 @@
 #!/usr/bin/env node
 // Entry point of the installed command: runs the TypeScript CLI through tsx's loader.
+// runAsProgram runs the command in a worker thread so that SIGINT/SIGTERM are
+// handled at once (temporary files removed, finished outputs listed).
 import { register } from 'tsx/esm/api';
 register();
-const { runCli, installSignalHandlers } = await import('../src/cli/main.ts');
-installSignalHandlers({ out: (t) => process.stdout.write(t), err: (t) => process.stderr.write(t) });
-process.exitCode = await runCli(process.argv.slice(2));
+const { runAsProgram } = await import('../src/cli/main.ts');
+runAsProgram(process.argv.slice(2));

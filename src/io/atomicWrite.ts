@@ -3,7 +3,7 @@
  * folder and is renamed into place only when complete. An existing file is
  * replaced only with `force`; a path that is also an input is refused.
  */
-import { closeSync, existsSync, fsyncSync, openSync, renameSync, unlinkSync, writeSync, realpathSync } from 'node:fs';
+import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, renameSync, unlinkSync, writeSync, realpathSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { InputError } from '../core/errors.js';
 
@@ -16,6 +16,25 @@ export interface AtomicWriteOptions {
 }
 
 const pending = new Set<string>();
+const finished: string[] = [];
+
+/** A temporary file starts, becomes its output (`finish`) or is deleted after a failure (`abandon`). */
+export interface TemporaryFileEvent { kind: 'start' | 'finish' | 'abandon'; temporary: string; output: string }
+let listener: ((e: TemporaryFileEvent) => void) | null = null;
+
+/**
+ * Sets (or clears with null) the function told of every temporary file's
+ * start, finish and abandonment; the CLI uses it to report a command running
+ * in a worker thread to the thread that handles SIGINT/SIGTERM.
+ */
+export function onTemporaryFileEvent(fn: ((e: TemporaryFileEvent) => void) | null): void {
+  listener = fn;
+}
+
+/** Outputs completed (renamed into place) by this process so far, in order. */
+export function finishedOutputs(): string[] {
+  return [...finished];
+}
 
 /** Temporary files not yet renamed, for the interrupt handler to delete. */
 export function pendingTemporaryFiles(): string[] {
@@ -73,6 +92,7 @@ export function writeFileAtomic(
       'check that the folder exists and is writable');
   }
   pending.add(tmp);
+  listener?.({ kind: 'start', temporary: tmp, output: path });
   try {
     const chunks: Iterable<Uint8Array> = typeof data === 'string' ? [Buffer.from(data, 'utf8')]
       : data instanceof Uint8Array ? [data] : data;
@@ -81,12 +101,29 @@ export function writeFileAtomic(
     closeSync(fd);
     renameSync(tmp, path);
     pending.delete(tmp);
+    finished.push(path);
+    listener?.({ kind: 'finish', temporary: tmp, output: path });
   } catch (e) {
     try { closeSync(fd); } catch { /* closed */ }
     try { unlinkSync(tmp); } catch { /* gone */ }
     pending.delete(tmp);
+    listener?.({ kind: 'abandon', temporary: tmp, output: path });
     if (e instanceof InputError) throw e;
     throw new InputError(`writing failed: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`, { file: path },
       'free disk space or choose another folder; earlier outputs are intact');
+  }
+}
+
+/**
+ * Creates an output folder (and its parents) when missing. A path that cannot
+ * be a folder (under a regular file, no permission) is an {@link InputError}
+ * naming the folder, not a stack trace.
+ */
+export function ensureOutputFolder(dir: string): void {
+  try {
+    mkdirSync(dir, { recursive: true });
+  } catch (e) {
+    throw new InputError(`cannot create the output folder: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: dir },
+      'choose a folder you can write to');
   }
 }

@@ -3,7 +3,9 @@
  * are in mapRead.ts, the writing rules in mapWrite.ts, the energy-cube layout
  * in mapLayout.ts.
  */
+import { statSync } from 'node:fs';
 import { InputError } from '../core/errors.js';
+import { assertFits } from '../core/memory.js';
 import type { SkyMap } from '../maps/skyMap.js';
 import { gunzipFits, isGzip, loadFitsBytes } from './fits/source.js';
 import { walkHdus } from './fits/hdu.js';
@@ -21,9 +23,19 @@ export { describeFitsFile, type FitsDescription } from './fitsDescribe.js';
  * `options.frame` supplies the frame when COORDSYS is missing or unknown.
  */
 export function readMapFile(path: string, options: ReadMapOptions = {}): MapFileContents {
+  checkFileMemory(path, options.memoryLimitBytes);
   const bytes = loadFitsBytes(path);
   const hdus = walkHdus(bytes, path);
   return readMapsFromHdus(bytes, hdus, path, options);
+}
+
+/** Refuses a plain (not gzip) file larger than the memory available, before reading it. */
+function checkFileMemory(path: string, limitBytes: number | undefined): void {
+  let size: number;
+  try { size = /\.gz$/i.test(path) ? 0 : statSync(path).size; } catch { return; } // unreadable: loadFitsBytes says why
+  if (size > 0) {
+    assertFits(size, `reading ${path}`, 'lower its Nside where memory allows (skyspan remap IN OUT --nside N), or split it into one map column per file', limitBytes);
+  }
 }
 
 /**

@@ -14,6 +14,7 @@ import type { DecodedArray } from './fits/decode.js';
 import type { Hdu } from './fits/hdu.js';
 import { isHealpixHdu, readFrame, readNside, readOrdering, readScheme } from './healpixKeywords.js';
 import { readEnergies } from './mapLayout.js';
+import { checkDecodeMemory } from './mapMemory.js';
 import { summariseHdu, type HduSummary } from './hduSummary.js';
 
 /** What a map file holds: one SkyMap per map column (a cube is one SkyMap), and every HDU described. */
@@ -27,6 +28,8 @@ export interface MapFileContents {
 export interface ReadMapOptions {
   /** Frame to assume when the file does not state one (COORDSYS missing or unknown). */
   frame?: FrameName;
+  /** Memory the decoded maps may take, bytes (default: SKYSPAN_MEMORY_LIMIT_BYTES, else the free memory; see core/memory.ts). */
+  memoryLimitBytes?: number;
 }
 
 /** Largest full-sky expansion of a partial map accepted regardless of the file size (bytes). */
@@ -117,6 +120,8 @@ export function readMapsFromHdus(bytes: Uint8Array, hdus: Hdu[], file: string, o
     guardExpansion(pixels.length, npix, 8, file, bytes.length);
     checkPixels(pixels, npix, file);
   }
+  checkDecodeMemory(valueCols, perPixel, { nside, file, inPlace, fullSky: !pixels && first === 0 && last === npix - 1, held: bytes.length },
+    options.memoryLimitBytes);
   const maps: SkyMap[] = [];
   const isCube = energies !== null;
   const planes: MapArray[] = [];

@@ -6,7 +6,7 @@
  */
 import type { Command } from 'commander';
 import { UsageError } from '../../core/errors.js';
-import { writeFileAtomic } from '../../io/atomicWrite.js';
+import { checkWritable, writeFileAtomic } from '../../io/atomicWrite.js';
 import { convertSpectrum, type ConversionResult } from '../../physics/hadronic/convert.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
 import { readSpectrumPoints, type SpectrumPoints } from '../../physics/points.js';
@@ -81,6 +81,8 @@ function action(file: string, o: Options, io: CliIo): void {
     assumptions: r.assumptions, notes: r.notes,
   };
   if (o.out) {
+    // Every output is checked before any is written, so a refused job writes nothing.
+    for (const ext of ['csv', 'md', 'json', 'plot.json']) checkWritable(`${o.out}.${ext}`, { force: o.force, inputs: [file] });
     const w = (path: string, text: string) => writeFileAtomic(path, text, { force: o.force, inputs: [file] });
     w(`${o.out}.csv`, info.map((l) => `# ${l}\n`).join('') + [header, ...rows].map((c) => c.join(',')).join('\n') + '\n');
     w(`${o.out}.md`, info.map((l) => `- ${l}\n`).join('') + '\n| ' + header.join(' | ') + ' |\n|' + header.map(() => ' --- |').join('')

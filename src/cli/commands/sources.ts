@@ -3,12 +3,12 @@
  * `populations` key of a larger YAML/JSON file) and writes the N(>S) table
  * (CSV and JSON), the source-intensity table and the log N - log S plot (SVG).
  */
-import { mkdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { parse as parseYaml } from 'yaml';
 import { InputError, UsageError } from '../../core/errors.js';
-import { checkWritable, writeFileAtomic } from '../../io/atomicWrite.js';
+import { checkWritable, ensureOutputFolder, writeFileAtomic } from '../../io/atomicWrite.js';
 import { parsePopulationSection } from '../../populations/section.js';
 import { runPopulationSection, type PopulationSectionResult } from '../../populations/runSection.js';
 import { parseRegionDocument } from '../../regions/document.js';
@@ -61,7 +61,7 @@ async function action(file: string, o: Options, io: CliIo): Promise<void> {
       [`${stem}-counts.csv`, result.tables.counts], [`${stem}-intensities.csv`, result.tables.intensities], [`${stem}-lognlogs.svg`, result.svg],
     ];
     const jsonPath = `${stem}-counts.json`;
-    mkdirSync(o.out, { recursive: true });
+    ensureOutputFolder(o.out);
     // Refuse before writing anything, so that a refused run leaves no partial set of outputs.
     for (const p of [...outputs.map((x) => x[0]), jsonPath]) checkWritable(p, { force: o.force, inputs });
     for (const [p, t] of outputs) { writeFileAtomic(p, t, { force: o.force, inputs }); written.push(p); }
