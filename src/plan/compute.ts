@@ -1,0 +1,173 @@
+/**
+ * The computing part of a run: templates, factors, survival, prediction,
+ * comparison, forecast and the optional population section. Returns plain
+ * results; plan/outputs.ts turns them into files.
+ */
+import { ComputeError, InputError } from '../core/errors.js';
+import { readSpectrumPoints, type SpectrumPoints } from '../physics/points.js';
+import { computeFactors } from '../scaling/factors.js';
+import type { FactorResult } from '../scaling/ensembleFactors.js';
+import type { TemplateFactor } from '../compare/ensemble.js';
+import type { Prediction } from '../compare/predict.js';
+import type { ReverseResult } from '../compare/reverse.js';
+import { chiSquareOverPoints, compareAtReference, type PointsComparison, type ReferenceComparison } from '../compare/tension.js';
+import { runPopulationSection, type PopulationSectionResult } from '../populations/index.js';
+import type { ArtefactCache } from './cache.js';
+import type { ResolvedPlan } from './loadPlan.js';
+import { cachedRegions, isWholeSky, regionSurvival } from './regionWeights.js';
+import { loadRunTemplates, type RunTemplate } from './templateStage.js';
+import { forecastPerEnergy, predictPerEnergy } from './predictStage.js';
+
+/** Survival of one region: per template, at each gamma-ray energy. */
+export interface SurvivalTable { region: string; exposureWeighted: boolean; energiesGeV: number[]; byTemplate: Record<string, number[]> }
+
+/** Everything a run computed. */
+export interface RunComputation {
+  templates: RunTemplate[];
+  points: SpectrumPoints | null;
+  e0GeV: number;
+  energiesNuGeV: number[];
+  factors: FactorResult | null;
+  prediction: Prediction | null;
+  perEnergy: boolean;
+  reference: ReferenceComparison | null;
+  pointsComparison: PointsComparison | null;
+  survival: SurvivalTable | null;
+  /** Factors used at E0, per template. */
+  factorsAtE0: TemplateFactor[];
+  forecastFactors: FactorResult | null;
+  forecastSurvival: SurvivalTable | null;
+  forecast: ReverseResult | null;
+  forecastPerEnergy: boolean;
+  populations: PopulationSectionResult | null;
+  absorptionStatement: string;
+  notes: string[];
+}
+
+const nearestPlane = (energies: Float64Array | null, eGeV: number): number => {
+  if (!energies || energies.length <= 1) return 0;
+  let best = 0;
+  for (let i = 1; i < energies.length; i++) if (Math.abs(Math.log(energies[i] / eGeV)) < Math.abs(Math.log(energies[best] / eGeV))) best = i;
+  return best;
+};
+
+function uniqueSorted(xs: number[]): number[] {
+  const s = [...xs].sort((a, b) => a - b);
+  return s.filter((x, i) => i === 0 || Math.abs(x - s[i - 1]) > 1e-9 * x);
+}
+
+/** Runs the computations of a resolved plan. */
+export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promise<RunComputation> {
+  const { plan } = rp;
+  const m = rp.measurement;
+  const absorption = plan.methods.absorption === 'cmb';
+  const notes: string[] = [];
+  const points = rp.gammaPointsFile ? readSpectrumPoints(rp.gammaPointsFile) : null;
+  const e0GeV = plan.methods.referenceEnergyTeV !== undefined ? plan.methods.referenceEnergyTeV * 1e3
+    : m.kind !== 'points' ? m.e0GeV : Math.sqrt(Math.min(...m.points.map((p) => p.energyGeV)) * Math.max(...m.points.map((p) => p.energyGeV)));
+  let energiesNuGeV: number[] = [];
+  if (points) {
+    const meas = Array.from(points.energyGeV).filter((_, i) => !points.upperLimit[i]);
+    const lo = Math.min(...meas), hi = Math.max(...meas);
+    const wanted = [...meas.map((e) => e / 2), ...(m.kind === 'points' ? m.points.map((p) => p.energyGeV) : [])];
+    energiesNuGeV = uniqueSorted(wanted.filter((e) => 2 * e >= lo * (1 - 1e-9) && 2 * e <= hi * (1 + 1e-9)));
+    if (!(2 * e0GeV >= lo * (1 - 1e-9) && 2 * e0GeV <= hi * (1 + 1e-9))) {
+      throw new InputError(`reference energy ${e0GeV / 1e3} TeV: twice it lies outside the gamma-ray points (${lo / 1e3} to ${hi / 1e3} TeV)`,
+        { file: rp.file, keyPath: 'methods.referenceEnergyTeV' }, 'choose a reference energy between half the lowest and half the highest measured gamma-ray energy');
+    }
+  }
+  let forecastEnergies: number[] = [];
+  if (plan.forecast) {
+    if (plan.forecast.energiesTeV) forecastEnergies = plan.forecast.energiesTeV.map((e) => e * 1e3);
+    else {
+      const r = m.kind === 'points' ? [Math.min(...m.points.map((p) => p.energyGeV)), Math.max(...m.points.map((p) => p.energyGeV))]
+        : (m.energyRangeGeV ?? [m.e0GeV / 10, m.e0GeV * 10]);
+      forecastEnergies = Array.from({ length: 8 }, (_, i) => 2 * r[0] * Math.pow(r[1] / r[0], i / 7));
+    }
+  }
+  const gammaEnergies = uniqueSorted([...(points ? [2 * e0GeV, ...energiesNuGeV.map((e) => 2 * e)] : []), ...forecastEnergies]);
+  const { templates, notes: tNotes } = await loadRunTemplates({
+    files: rp.templateFiles, specs: rp.buildSpecs, shipped: rp.shipped, buildNside: plan.templates.buildNside,
+    absorptionNside: plan.methods.absorptionNside, absorption, gammaEnergiesGeV: gammaEnergies, frame: plan.templates.frame, planFile: rp.file,
+  }, cache);
+  notes.push(...tNotes);
+  const weights = plan.templates.weights;
+  if (weights) {
+    for (const k of Object.keys(weights)) if (!templates.some((t) => t.name === k)) {
+      throw new InputError(`found template '${k}', expected one of: ${templates.map((t) => t.name).join(', ')}`, { file: rp.file, keyPath: `templates.weights.${k}` });
+    }
+    const missing = templates.find((t) => weights[t.name] === undefined);
+    if (missing) throw new InputError(`found no weight for template '${missing.name}', expected a weight for every template or none`, { file: rp.file, keyPath: 'templates.weights' });
+  }
+  const evaluate = cachedRegions(rp.regions, cache);
+  const regionsBase = { regions: rp.regions, mode: plan.coverage, assumeFrame: plan.templates.frame, evaluate,
+    isWholeSky: (n: string) => isWholeSky(rp.regions, n) };
+  const factorTemplates = templates.map((t) => ({ name: t.name, map: t.map, weight: weights?.[t.name] }));
+
+  const survivalIn = (region: string, exposureWeighted: boolean, energies: number[]): SurvivalTable | null => {
+    if (!absorption || energies.length === 0) return null;
+    const byTemplate: Record<string, number[]> = {};
+    for (const t of templates) {
+      const a = t.absorbed!;
+      const frame = a.tAbs.frame === 'equatorial' ? 'equatorial' : 'galactic';
+      const w = evaluate(region, { nside: a.tAbs.nside, frame, mode: plan.coverage });
+      byTemplate[t.name] = energies.map((e) => {
+        const k = nearestPlane(a.tAbs.energiesGeV, e);
+        const p = regionSurvival(a.tAbs.planes[k], a.survival.planes[k], w, exposureWeighted);
+        if (!(p > 0 && p <= 1 + 1e-12)) throw new ComputeError(`template '${t.name}': mean survival in region '${region}' at ${e} GeV is ${p}; expected a probability`);
+        return Math.min(1, p);
+      });
+    }
+    return { region, exposureWeighted, energiesGeV: energies, byTemplate };
+  };
+  const factorSet = (fr: FactorResult, target: string, surv: SurvivalTable | null) => (gammaEnergyGeV: number): TemplateFactor[] =>
+    templates.map((t) => {
+      const rows = fr.rows.filter((r) => r.template === t.name && r.target === target);
+      const k = nearestPlane(t.map.energiesGeV, gammaEnergyGeV);
+      const row = rows.find((r) => r.plane === k) ?? rows[0];
+      const j = surv ? surv.energiesGeV.findIndex((e) => Math.abs(e - gammaEnergyGeV) <= 1e-9 * e) : -1;
+      return { template: t.name, kI: row.kI, ...(surv ? { survivalMean: surv.byTemplate[t.name][j] } : {}), ...(weights ? { weight: weights[t.name] } : {}) };
+    });
+
+  let factors: FactorResult | null = null, prediction: Prediction | null = null, perEnergy = false;
+  let reference: ReferenceComparison | null = null, pointsComparison: PointsComparison | null = null, survival: SurvivalTable | null = null;
+  let factorsAtE0: TemplateFactor[] = [];
+  const mc = { samples: plan.monteCarlo.samples, seed: plan.monteCarlo.seed };
+  const conv = { methods: plan.methods.conversion, channel: plan.methods.channel, flavourRatio: plan.methods.flavourRatio as [number, number, number] };
+  if (points && plan.gamma) {
+    factors = computeFactors({ ...regionsBase, templates: factorTemplates, measured: plan.gamma.region,
+      targets: uniqueNames([plan.neutrino.region, ...plan.targets]), exposureWeighted: plan.gamma.exposureWeighted });
+    survival = survivalIn(plan.gamma.region, plan.gamma.exposureWeighted, uniqueSorted([2 * e0GeV, ...energiesNuGeV.map((e) => 2 * e)]));
+    const at = factorSet(factors, plan.neutrino.region, survival);
+    factorsAtE0 = at(2 * e0GeV);
+    const r = predictPerEnergy({ gamma: { kind: 'points', points }, factorsFile: rp.file, ...conv, region: plan.neutrino.region, ...mc },
+      e0GeV, energiesNuGeV, (e) => at(2 * e));
+    prediction = r.prediction; perEnergy = r.perEnergy;
+    if (m.kind !== 'points') reference = compareAtReference(prediction, m);
+    else pointsComparison = chiSquareOverPoints(prediction, m);
+  }
+  let forecastFactors: FactorResult | null = null, forecastSurvival: SurvivalTable | null = null, forecast: ReverseResult | null = null, fPer = false;
+  if (plan.forecast) {
+    forecastFactors = computeFactors({ ...regionsBase, templates: factorTemplates, measured: plan.forecast.footprint,
+      targets: [plan.neutrino.region], exposureWeighted: plan.forecast.exposureWeighted });
+    forecastSurvival = survivalIn(plan.forecast.footprint, plan.forecast.exposureWeighted, uniqueSorted(forecastEnergies));
+    const r = forecastPerEnergy({ measurement: m, ...conv, ...mc }, uniqueSorted(forecastEnergies), factorSet(forecastFactors, plan.neutrino.region, forecastSurvival));
+    forecast = r.forecast; fPer = r.perEnergy;
+  }
+  let populations: PopulationSectionResult | null = null;
+  if (plan.populations) {
+    populations = runPopulationSection(plan.populations, { regions: rp.regions, baseDir: rp.dir, file: rp.file, keyPath: 'populations',
+      regionWeights: (name, nside) => evaluate(name, { nside, frame: 'galactic', mode: plan.coverage }) });
+    notes.push('the population section is reported beside the comparison; its unresolved-source correction is not applied to the headline numbers');
+  }
+  const absorptionStatement = !absorption
+    ? 'No absorption correction: gamma rays were taken as emitted (survival 1).'
+    : `Pair absorption on the CMB: each template's emission-weighted mean survival probability in the measured region was computed from the template model at every gamma-ray energy used (${rp.shipped ? `shipped templates rebuilt from their specs at Nside ${plan.methods.absorptionNside}` : 'from the templates\' survival maps'}); ` +
+      ((perEnergy || fPer) ? 'the prediction was made once per energy with the survival at that energy.' : 'the survival did not change between the energies used.');
+  return { templates, points, e0GeV, energiesNuGeV, factors, prediction, perEnergy, reference, pointsComparison, survival, factorsAtE0,
+    forecastFactors, forecastSurvival, forecast, forecastPerEnergy: fPer, populations, absorptionStatement, notes };
+}
+
+function uniqueNames(xs: string[]): string[] {
+  return [...new Set(xs)];
+}

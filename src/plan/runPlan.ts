@@ -1,0 +1,168 @@
+/**
+ * `runPlan(planPath, options)`: the whole job from a plan file to one folder
+ * of outputs — results.json, factor tables (CSV/MD/JSON/TeX), comparison
+ * tables, survival table, sky map PNG, spectrum SVG, the HTML report and
+ * provenance.json (input SHA-256, the resolved plan, skyspan and Node
+ * versions, seed, time, and the SHA-256 of every output beside it). Every
+ * destination is checked before the first is written; an existing file is
+ * replaced only with `force`. Expensive intermediates are cached (cache.ts)
+ * in `cacheDir`, by default `.skyspan-cache` beside the output folder.
+ */
+import { createHash } from 'node:crypto';
+import { mkdirSync } from 'node:fs';
+import { basename, dirname, join, resolve } from 'node:path';
+import { checkWritable, writeFileAtomic } from '../io/atomicWrite.js';
+import { sha256File } from '../io/hash.js';
+import { renderReport, type ReportFigure, type ReportTable } from '../render/report.js';
+import { renderComparison, summaryRows, type ComparisonReport } from '../compare/report.js';
+import { buildProvenance } from '../scaling/provenance.js';
+import { renderFactorTables } from '../scaling/tableText.js';
+import { VERSION } from '../version.js';
+import { ArtefactCache, type CacheStats } from './cache.js';
+import { computePlan, type RunComputation } from './compute.js';
+import { comparisonSvg, forecastSvg, skyMapPng } from './figures.js';
+import { loadPlan } from './loadPlan.js';
+import { regionFiles } from './regionWeights.js';
+import { headline, reportContent, type Headline } from './reportContent.js';
+
+/** Options of {@link runPlan}. */
+export interface RunOptions {
+  outDir: string;
+  force?: boolean;
+  /** false: compute everything afresh and store nothing. */
+  cache?: boolean;
+  /** Cache folder (default: `<parent of outDir>/.skyspan-cache`). */
+  cacheDir?: string;
+  /** Fixed time for reproducible outputs (tests). */
+  date?: Date;
+}
+
+/** What {@link runPlan} returns. */
+export interface RunSummary {
+  outDir: string;
+  files: string[];
+  report: string | null;
+  results: string;
+  headline: Headline;
+  cache: CacheStats;
+  computation: RunComputation;
+}
+
+type Out = { name: string; data: string | Uint8Array };
+
+function toJson(v: unknown): string {
+  return JSON.stringify(v, (_, x) => (ArrayBuffer.isView(x) ? Array.from(x as unknown as ArrayLike<number>) : typeof x === 'number' && !Number.isFinite(x) ? String(x) : x), 2) + '\n';
+}
+
+/** Runs the plan at `planPath` (see module comment). */
+export async function runPlan(planPath: string, options: RunOptions): Promise<RunSummary> {
+  const rp = loadPlan(planPath);
+  const outDir = resolve(options.outDir);
+  const cacheDir = options.cache === false ? null : resolve(options.cacheDir ?? join(dirname(outDir), '.skyspan-cache'));
+  const cache = new ArtefactCache(cacheDir);
+  const date = options.date ?? new Date();
+  const c = await computePlan(rp, cache);
+  const { plan } = rp;
+
+  const inputs: { role: string; path: string; sha256: string }[] = [];
+  if (rp.file) inputs.push({ role: 'plan', path: rp.file, sha256: sha256File(rp.file) });
+  if (rp.regionsFile) inputs.push({ role: 'regions', path: rp.regionsFile, sha256: sha256File(rp.regionsFile) });
+  for (const f of regionFiles(rp.regions)) inputs.push({ role: 'region input', ...f });
+  if (rp.gammaPointsFile) inputs.push({ role: 'gamma-ray points', path: rp.gammaPointsFile, sha256: sha256File(rp.gammaPointsFile) });
+  if (rp.measurementFile) inputs.push({ role: 'neutrino measurement', path: rp.measurementFile, sha256: sha256File(rp.measurementFile) });
+  for (const t of c.templates) inputs.push({ role: `template (${t.origin.kind})`, path: t.origin.path, sha256: t.origin.sha256 });
+  const inputPaths = inputs.map((i) => i.path);
+
+  const outs: Out[] = [];
+  const fr = c.factors ?? c.forecastFactors!;
+  const fprov = buildProvenance(fr, { inputs, regionSpec: rp.regions.source, command: `skyspan run ${basename(planPath)}`, date });
+  for (const f of plan.outputs.tables) outs.push(...renderFactorTables(fr, fprov, f, 'factors').map((x) => ({ name: x.name, data: x.text })));
+
+  let compReport: ComparisonReport | null = null;
+  if (c.prediction) {
+    compReport = { prediction: c.prediction, measurement: rp.measurement, gammaPoints: c.points ?? undefined,
+      reference: c.reference ?? undefined, points: c.pointsComparison ?? undefined,
+      provenance: { tool: `skyspan ${VERSION}`, plan: rp.file ?? null, created: date.toISOString() } };
+    const fmts = plan.outputs.tables.filter((f): f is 'csv' | 'md' | 'json' => f !== 'tex');
+    outs.push(...renderComparison(compReport, fmts.length ? fmts : ['json'], 'comparison').map((x) => ({ name: x.name, data: x.text })));
+  }
+  const survCsv = (s: NonNullable<RunComputation['survival']>) => ['# mean survival probability (emission weighted) of gamma rays from region ' + s.region,
+    `template,${s.energiesGeV.map((e) => `P_at_${e}_GeV`).join(',')}`, ...Object.entries(s.byTemplate).map(([t, v]) => `${t},${v.join(',')}`)].join('\n') + '\n';
+  if (c.survival) outs.push({ name: 'survival.csv', data: survCsv(c.survival) });
+  if (c.forecastSurvival) outs.push({ name: 'forecast-survival.csv', data: survCsv(c.forecastSurvival) });
+  if (c.forecast) {
+    const comb = c.forecast.components.find((k) => k.name === 'combined')!;
+    outs.push({ name: 'forecast.csv', data: ['# expected gamma-ray intensity I (GeV^-1 cm^-2 s^-1 sr^-1) in the footprint ' + plan.forecast!.footprint,
+      ...c.forecast.assumptions.map((a) => `# assumption: ${a}`), 'energy_GeV,median,p16,p84',
+      ...Array.from(c.forecast.energiesGammaGeV, (e, j) => `${e},${comb.atEnergies[j].median},${comb.atEnergies[j].p16},${comb.atEnergies[j].p84}`)].join('\n') + '\n' });
+  }
+  if (c.populations) {
+    outs.push({ name: 'populations-counts.csv', data: c.populations.tables.counts }, { name: 'populations-intensities.csv', data: c.populations.tables.intensities },
+      { name: 'populations-counts.svg', data: c.populations.svg });
+  }
+
+  const figures: ReportFigure[] = [];
+  if (plan.outputs.maps) {
+    const name = plan.outputs.mapTemplate ?? c.templates[0].name;
+    const t = c.templates.find((x) => x.name === name) ?? c.templates[0];
+    const outline = [...(plan.gamma ? [plan.gamma.region] : []), ...(plan.forecast ? [plan.forecast.footprint] : [])];
+    const png = skyMapPng(t.map, t.name, rp.regions, { outline, shade: plan.gamma?.mask ? [plan.gamma.mask] : [], width: plan.outputs.mapWidth });
+    outs.push({ name: 'map-template.png', data: png });
+    figures.push({ id: 'fig-map', png, caption: `Template '${t.name}' (Mollweide, Galactic, log scale) with ${outline.map((o) => `'${o}'`).join(' and ')} outlined${plan.gamma?.mask ? ` and '${plan.gamma.mask}' hatched` : ''}.` });
+  }
+  if (plan.outputs.spectrum && compReport) {
+    const svg = comparisonSvg(compReport, plan.title);
+    outs.push({ name: 'spectrum.svg', data: svg });
+    figures.push({ id: 'fig-spectrum', svg, caption: 'Gamma-ray points in the measured region, the predicted neutrino intensity (template spread inside the total uncertainty) and the measured neutrino band.' });
+  }
+  if (plan.outputs.spectrum && c.forecast) {
+    const svg = forecastSvg(c.forecast, rp.measurement, `${plan.title}: forecast`);
+    outs.push({ name: 'forecast.svg', data: svg });
+    figures.push({ id: 'fig-forecast', svg, caption: `Gamma-ray intensity expected in '${plan.forecast!.footprint}' from the neutrino measurement.` });
+  }
+  const extraTables: ReportTable[] = [];
+  if (c.populations) figures.push({ id: 'fig-populations', svg: c.populations.svg, caption: `Source counts of the population '${c.populations.name}' (not applied to the headline).` });
+
+  const h = headline(rp, c);
+  const results = {
+    title: plan.title, createdUtc: date.toISOString(), skyspan: VERSION, node: process.version,
+    samples: plan.monteCarlo.samples, seed: plan.monteCarlo.seed, e0GeV: c.e0GeV, energiesNuGeV: c.energiesNuGeV,
+    headline: h, absorption: c.absorptionStatement, perEnergyPrediction: c.perEnergy,
+    factorsAtE0: c.factorsAtE0, survival: c.survival, forecastSurvival: c.forecastSurvival,
+    factorSummary: c.factors?.summary ?? null,
+    prediction: c.prediction ? { flavourRatio: c.prediction.flavourRatio, primaryMethod: c.prediction.primaryMethod,
+      components: c.prediction.components.map((k) => ({ name: k.name, description: k.description, atE0: k.atE0, atEnergies: k.atEnergies })),
+      methods: c.prediction.methods.map((m) => ({ id: m.id, label: m.label, atE0: m.atE0, atEnergies: m.atEnergies })),
+      assumptions: c.prediction.assumptions, notes: c.prediction.notes, warnings: c.prediction.warnings, linearCheck: c.prediction.linearCheck } : null,
+    comparison: c.reference, pointsComparison: c.pointsComparison,
+    forecast: c.forecast ? { energiesGammaGeV: c.forecast.energiesGammaGeV, components: c.forecast.components, methods: c.forecast.methods,
+      assumptions: c.forecast.assumptions, notes: c.forecast.notes, warnings: c.forecast.warnings } : null,
+    populations: c.populations ? { name: c.populations.name, catalogue: c.populations.catalogue, unresolvedMeasured: c.populations.unresolvedMeasured,
+      neutrinoAll: c.populations.neutrinoAll, assumptions: c.populations.assumptions, notes: c.populations.notes, warnings: c.populations.warnings } : null,
+    notes: c.notes, cache: { dir: cache.stats.dir, hits: cache.stats.hits.length, misses: cache.stats.misses.length },
+  };
+  outs.push({ name: 'results.json', data: toJson(results) });
+
+  const planSha = rp.file ? sha256File(rp.file) : null;
+  const provBase = { tool: 'skyspan', skyspanVersion: VERSION, nodeVersion: process.version, createdUtc: date.toISOString(),
+    seed: plan.monteCarlo.seed, samples: plan.monteCarlo.samples, plan: rp.file ?? null, planSha256: planSha, resolvedPlan: plan, inputs,
+    cache: cacheDir ?? 'off' };
+  if (plan.outputs.report) {
+    const provList: [string, string | number | boolean][] = [
+      ['skyspan', VERSION], ['Node', process.version], ['created (UTC)', date.toISOString()], ['seed', plan.monteCarlo.seed],
+      ['Monte Carlo samples', plan.monteCarlo.samples], ...inputs.map((i): [string, string] => [`${i.role}: ${basename(i.path)}`, `sha256 ${i.sha256}`]),
+      ['full record', 'provenance.json beside this file'],
+    ];
+    const html = renderReport(reportContent(rp, c, h, figures, provList, compReport ? summaryRows(compReport) : [], extraTables));
+    outs.push({ name: 'report.html', data: html });
+  }
+  const outputsList = outs.map((o) => ({ file: o.name, sha256: createHash('sha256').update(o.data).digest('hex') }));
+  outs.push({ name: 'provenance.json', data: toJson({ ...provBase, outputs: outputsList }) });
+
+  mkdirSync(outDir, { recursive: true });
+  const wopts = { force: options.force, inputs: inputPaths };
+  for (const o of outs) checkWritable(join(outDir, o.name), wopts);
+  for (const o of outs) writeFileAtomic(join(outDir, o.name), o.data, wopts);
+  return { outDir, files: outs.map((o) => join(outDir, o.name)), report: plan.outputs.report ? join(outDir, 'report.html') : null,
+    results: join(outDir, 'results.json'), headline: h, cache: cache.stats, computation: c };
+}

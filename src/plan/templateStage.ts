@@ -1,0 +1,119 @@
+/**
+ * The templates of a run and their survival maps. Template files are read as
+ * given; specs are built at `buildNside` (with absorption when asked, the
+ * absorbed map divided by its survival map to get the intrinsic template the
+ * factors need); the shipped ensemble is read from templates/ and, for
+ * absorption, each of its specs is built again at `absorptionNside` with
+ * absorption at the gamma-ray energies in use. Builds go through the cache.
+ */
+import { existsSync } from 'node:fs';
+import { InputError } from '../core/errors.js';
+import { sha256File } from '../io/hash.js';
+import { readSkyMap } from '../io/mapFile.js';
+import { createSkyMap } from '../maps/create.js';
+import type { SkyMap } from '../maps/skyMap.js';
+import { listTemplateFiles, readTemplateFiles } from '../scaling/templateFiles.js';
+import { buildTemplate, type BuiltTemplate } from '../templates/buildTemplate.js';
+import { loadShippedEnsemble } from '../templates/ensemble.js';
+import { readTemplateSpec } from '../templates/readSpecFile.js';
+import type { TemplateSpec } from '../templates/templateSpec.js';
+import { survivalPathFor } from '../templates/writeTemplate.js';
+import type { ArtefactCache } from './cache.js';
+
+/** One template of the run: the intrinsic map for the factors, and an absorbed map with its survival map, if any. */
+export interface RunTemplate {
+  name: string;
+  map: SkyMap;
+  /** Absorbed template (emission x survival) and survival map on one grid, with energies; null without absorption. */
+  absorbed: { tAbs: SkyMap; survival: SkyMap } | null;
+  /** Where it came from: a file, a spec file, or 'shipped'. */
+  origin: { kind: 'file' | 'spec' | 'shipped'; path: string; sha256: string };
+}
+
+function mapToEntry(m: SkyMap) {
+  return { meta: { nside: m.nside, ordering: m.ordering, frame: m.frame, column: m.column, unit: m.unit,
+    energiesGeV: m.energiesGeV ? Array.from(m.energiesGeV) : null }, arrays: m.planes.map((p) => Float64Array.from(p)) };
+}
+function entryToMap(meta: unknown, arrays: (Float32Array | Float64Array)[]): SkyMap {
+  const m = meta as { nside: number; ordering: 'RING' | 'NESTED'; frame: 'galactic'; column: string; unit: string; energiesGeV: number[] | null };
+  return createSkyMap({ nside: m.nside, ordering: m.ordering, frame: m.frame, column: m.column, unit: m.unit, planes: arrays,
+    energiesGeV: m.energiesGeV ? Float64Array.from(m.energiesGeV) : null });
+}
+
+/** Map files named by `paths` (folders expanded), without the survival maps that sit beside templates. */
+export function templateFileList(paths: string[]): string[] {
+  return listTemplateFiles(paths).filter((f) => paths.includes(f) || !/-survival\.(fits|fit|fts)(\.gz)?$/i.test(f));
+}
+
+/** Builds a spec through the cache. */
+export async function cachedBuild(spec: TemplateSpec, opts: { nside: number; energiesGeV?: number[]; absorption: boolean },
+  cache: ArtefactCache): Promise<BuiltTemplate> {
+  const key = cache.key('build', { spec, ...opts });
+  const label = `template ${spec.name} at Nside ${opts.nside}${opts.absorption ? ' with absorption' : ''}`;
+  const hit = cache.get('build', key, label);
+  if (hit) {
+    const meta = hit.meta as { map: unknown; survival: unknown; planes: number };
+    const np = meta.planes;
+    return { map: entryToMap(meta.map, hit.arrays.slice(0, np)), survival: meta.survival ? entryToMap(meta.survival, hit.arrays.slice(np)) : null };
+  }
+  const built = await buildTemplate(spec, { nside: opts.nside, energiesGeV: opts.energiesGeV, absorption: opts.absorption });
+  const a = mapToEntry(built.map), b = built.survival ? mapToEntry(built.survival) : null;
+  cache.put('build', key, label, { meta: { map: a.meta, survival: b?.meta ?? null, planes: a.arrays.length }, arrays: [...a.arrays, ...(b?.arrays ?? [])] });
+  return built;
+}
+
+/** Intrinsic template = absorbed / survival (pixels with survival 0 stay 0). */
+function intrinsic(built: BuiltTemplate): SkyMap {
+  const s = built.survival!;
+  const planes = built.map.planes.map((p, e) => Float64Array.from(p, (v, i) => (s.planes[e][i] > 0 ? v / s.planes[e][i] : 0)));
+  return { ...built.map, planes };
+}
+
+/** Loads every template of the run (see module comment). `gammaEnergiesGeV` are the energies survival is needed at. */
+export async function loadRunTemplates(opts: {
+  files: string[]; specs: string[]; shipped: boolean; buildNside: number; absorptionNside: number;
+  absorption: boolean; gammaEnergiesGeV: number[]; frame?: 'galactic' | 'equatorial'; planFile?: string;
+}, cache: ArtefactCache): Promise<{ templates: RunTemplate[]; notes: string[] }> {
+  const out: RunTemplate[] = [], notes: string[] = [];
+  const energies = [...opts.gammaEnergiesGeV];
+  if (opts.files.length) {
+    for (const t of readTemplateFiles(templateFileList(opts.files), { frame: opts.frame })) {
+      let absorbed: RunTemplate['absorbed'] = null;
+      if (opts.absorption) {
+        const sp = survivalPathFor(t.file);
+        if (!existsSync(sp)) {
+          throw new InputError(`template file ${t.file} has no survival map beside it (${sp})`, { file: opts.planFile, keyPath: 'templates.files' },
+            'build it with absorption (skyspan build --absorption), name its spec under templates.build, or set methods.absorption: none');
+        }
+        const survival = readSkyMap(sp, { frame: opts.frame });
+        if (!survival.energiesGeV) throw new InputError('survival map states no energies', { file: sp });
+        if (survival.nside !== t.map.nside || survival.planes.length !== survival.energiesGeV.length) {
+          throw new InputError(`survival map is at Nside ${survival.nside}, the template at ${t.map.nside}`, { file: sp });
+        }
+        const tAbs = { ...survival, planes: survival.planes.map((s, e) => Float64Array.from(s, (v, i) => v * t.map.planes[Math.min(e, t.map.planes.length - 1)][i])) };
+        absorbed = { tAbs, survival };
+        notes.push(`template '${t.name}': survival from ${sp}`);
+      }
+      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'file', path: t.file, sha256: sha256File(t.file) } });
+    }
+  }
+  for (const path of opts.specs) {
+    const spec = readTemplateSpec(path);
+    const built = await cachedBuild(spec, { nside: opts.buildNside, energiesGeV: opts.absorption ? energies : spec.energiesGeV, absorption: opts.absorption }, cache);
+    const map = opts.absorption ? intrinsic(built) : built.map;
+    out.push({ name: spec.name, map, absorbed: opts.absorption ? { tAbs: built.map, survival: built.survival! } : null,
+      origin: { kind: 'spec', path, sha256: sha256File(path) } });
+  }
+  if (opts.shipped) {
+    for (const t of loadShippedEnsemble()) {
+      let absorbed: RunTemplate['absorbed'] = null;
+      if (opts.absorption) {
+        const b = await cachedBuild(t.spec, { nside: opts.absorptionNside, energiesGeV: energies, absorption: true }, cache);
+        absorbed = { tAbs: b.map, survival: b.survival! };
+      }
+      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'shipped', path: t.file, sha256: sha256File(t.file) } });
+    }
+    if (opts.absorption) notes.push(`shipped templates: survival maps built from their specs at Nside ${opts.absorptionNside} with CMB absorption at ${energies.map((e) => `${(e / 1e3).toPrecision(3)} TeV`).join(', ')}`);
+  }
+  return { templates: out, notes };
+}
