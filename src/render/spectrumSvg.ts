@@ -139,7 +139,7 @@ export function renderSpectrumSvg(data: SpectrumPlotData, options: SpectrumSvgOp
   }
   // Legend, top right inside the frame.
   if (legend.length) {
-    const lw = Math.min(360, 44 + 7.2 * Math.max(...[...data.bands.map((b) => b.label.length), ...data.points.map((p) => p.label.length)]));
+    const lw = Math.min(0.8 * (x1 - x0), 44 + 7.2 * Math.max(...[...data.bands.map((b) => b.label.length), ...data.points.map((p) => p.label.length)]));
     const lx = x1 - lw - 10, ly = y1 + 10;
     out.push(`<g data-role="legend" transform="translate(${fmt(lx)} ${fmt(ly)})"><rect x="-8" y="-4" width="${fmt(lw)}" height="${legend.length * 20 + 8}" fill="#ffffff" fill-opacity="0.88" stroke="#c9ced6"/>`);
     legend.forEach((l, k) => out.push(`<g transform="translate(0 ${k * 20 + 14})">${l}</g>`));
