@@ -1,5 +1,5 @@
 /**
- * The layering rule of DEVELOPERS.md: a module under src/<layer>/ imports only
+ * The layering rule (LAYERS below, in order): a module under src/<layer>/ imports only
  * from its own layer and the layers before it. (Project rule, no outside source.)
  */
 import { readdirSync, readFileSync, statSync } from 'node:fs';

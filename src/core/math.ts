@@ -8,8 +8,11 @@ export const EPSILON_GEOM = 1e-12;
 /** Tolerance for convergence of iterative or refined computations (relative). */
 export const EPSILON_CONVERGE = 1e-9;
 
+/** pi. */
 export const PI = Math.PI;
+/** 2 pi. */
 export const TWO_PI = 2 * Math.PI;
+/** pi / 2. */
 export const HALF_PI = Math.PI / 2;
 
 /** asin with its argument clamped to [-1, 1] so that rounding never gives NaN. */

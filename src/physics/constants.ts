@@ -25,4 +25,5 @@ export const MILLIBARN_CM2 = 1e-27;
 export const CMB_TEMPERATURE_K = 2.7255;
 /** Charged and neutral pion and muon masses in GeV (Particle Data Group; from memory). */
 export const PION_CHARGED_MASS_GEV = 0.13957039;
+/** Muon mass in GeV (Particle Data Group; from memory). */
 export const MUON_MASS_GEV = 0.1056583755;

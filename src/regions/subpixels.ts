@@ -9,7 +9,7 @@
  * Plain arithmetic (no 32-bit bit operations), so sub-pixel Nsides beyond
  * 8192 are fine.
  */
-import { ringToNest } from '../sphere/pixelIndex.js';
+import { compressBits, ringToNest } from '../sphere/pixelIndex.js';
 
 const JRLL = [2, 2, 2, 2, 3, 3, 3, 3, 4, 4, 4, 4];
 const JPLL = [1, 3, 5, 7, 0, 2, 4, 6, 1, 3, 5, 7];
@@ -43,15 +43,6 @@ export function subpixelCentre(face: number, ix: number, iy: number, nside: numb
   out[2] = (jp - (kshift + 1) * 0.5) * ((Math.PI / 2) / nr);
 }
 
-function compress(v: number): number {
-  v &= 0x55555555;
-  v = (v | (v >>> 1)) & 0x33333333;
-  v = (v | (v >>> 2)) & 0x0f0f0f0f;
-  v = (v | (v >>> 4)) & 0x00ff00ff;
-  v = (v | (v >>> 8)) & 0x0000ffff;
-  return v;
-}
-
 /**
  * Face and (ix, iy) of the RING pixel `ring` at Nside nside (at most 8192),
  * written into out[0..2].
@@ -62,8 +53,8 @@ export function ringToFaceXY(nside: number, ring: number, out: Float64Array): vo
   const face = Math.floor(nest / n2);
   const inFace = nest - face * n2;
   out[0] = face;
-  out[1] = compress(inFace);
-  out[2] = compress(inFace >>> 1);
+  out[1] = compressBits(inFace);
+  out[2] = compressBits(inFace >>> 1);
 }
 
 /** Ratio of {@link pixelRadiusBound} to the resolution sqrt(pi/3)/nside. */

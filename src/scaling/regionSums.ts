@@ -30,6 +30,7 @@ export const S = {
   /** pixels with f > 0 and T < 0 */ NEG_COUNT: 7,
   /** pixels with f > 0 and a valid value */ VALID_COUNT: 8,
 } as const;
+/** Number of slots in one region's sums (one more than the largest slot index above). */
 export const SUMS_LENGTH = 9;
 
 const BLANK_LO = BLANK * (1 + 1e-5);

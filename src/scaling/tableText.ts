@@ -11,6 +11,7 @@ import { provenanceLines, type FactorProvenance } from './provenance.js';
 
 /** Output formats of a factor table. */
 export type TableFormat = 'csv' | 'md' | 'json' | 'tex';
+/** All factor-table formats, in the default order. */
 export const TABLE_FORMATS: readonly TableFormat[] = ['csv', 'md', 'json', 'tex'];
 
 type Col<R> = { key: string; label: string; tex: string; get: (r: R) => string | number | null };

@@ -14,6 +14,9 @@ export interface Frame {
   readonly epoch: 'J2000' | null;
 }
 
+/** The Galactic frame (l, b), J2000 axes. */
 export const GALACTIC: Frame = { name: 'galactic', epoch: 'J2000' };
+/** The equatorial frame (RA, Dec), ICRS. */
 export const EQUATORIAL: Frame = { name: 'equatorial', epoch: 'J2000' };
+/** A map whose file does not state its frame. */
 export const UNKNOWN_FRAME: Frame = { name: 'unknown', epoch: null };

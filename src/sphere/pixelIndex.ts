@@ -69,7 +69,13 @@ function spreadBits(v: number): number {
   return v;
 }
 
-function compressBits(v: number): number {
+/**
+ * The even-numbered bits of v (bits 0, 2, 4, ...) packed into the low 16 bits:
+ * the inverse of bit interleaving, which gives x (or, for v >>> 1, y) of a
+ * NESTED in-face index (Gorski et al. 2005, ApJ 622, 759, section 4).
+ * Valid for 0 <= v < 2^32 (in-face indices up to Nside 2^16); allocation-free.
+ */
+export function compressBits(v: number): number {
   v &= 0x55555555;
   v = (v | (v >>> 1)) & 0x33333333;
   v = (v | (v >>> 2)) & 0x0f0f0f0f;

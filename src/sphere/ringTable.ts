@@ -8,7 +8,8 @@
  * Formulas: Gorski et al. 2005 (ApJ 622, 759), section 4, eqs. 4-9 (pixel-centre
  * positions in the polar caps and the equatorial belt). In the belt the shift is
  * s = ((i - Nside) mod 2) + 1, phi = (pi / (2 Nside)) (j - s/2) with 1-based j;
- * that form reproduces healpy's pix2ang (see REFERENCES).
+ * that form reproduces healpy's pix2ang (checked with Debian python3-healpy
+ * in test/sphere/healpixGeometry.test.ts).
  *
  * @example
  * const t = ringTable(4);

@@ -45,6 +45,7 @@ export function zOfU(u: number, zScaleKpc: number): number {
 
 /** Strides of the coarser table on which user expressions are evaluated (every 4th R node, every 2nd u node). */
 export const EXPRESSION_STRIDE_R = 4;
+/** Stride in u of the expression table (see EXPRESSION_STRIDE_R). */
 export const EXPRESSION_STRIDE_U = 2;
 
 /**

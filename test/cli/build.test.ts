@@ -30,7 +30,7 @@ describe('skyspan build', () => {
     const s = readSkyMap(join(dir, 't-survival.fits.gz'));
     // Toward latitude b an exponential slab (scale h) seen from inside survives with lambda / (lambda + h / sin b)
     // (integral of exp(-s sin b / h - s / lambda); common practice, no source); lambda(2.2 PeV) = 7.067 kpc
-    // (REFERENCES, computed). Pixel 0 of Nside 4 is at sin b = 1 - 1/48; sub-pixel averaging moves this by < 1e-4.
+    // (computed with scipy, scripts/attenuation_reference.py). Pixel 0 of Nside 4 is at sin b = 1 - 1/48; sub-pixel averaging moves this by < 1e-4.
     const expected = 7.067 / (7.067 + 0.1 / (1 - 1 / 48));
     expect(Math.abs(s.planes[1][0] - expected)).toBeLessThan(3e-4);
     for (const v of s.planes[1]) expect(v > 0 && v <= 1).toBe(true);

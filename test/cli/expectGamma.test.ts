@@ -17,6 +17,8 @@ describe('skyspan expect-gamma', () => {
     expect(code).toBe(0);
     const doc = JSON.parse(out.join(''));
     const iE = doc.columns.indexOf('energyGeV'), iK = doc.columns.indexOf('method_kpi');
+    expect(iK).toBeGreaterThan(0);
+    expect(doc.rows.length).toBeGreaterThan(0);
     for (const row of doc.rows) {
       const e = row[iE];
       const expected = (0.9 / 2) * 2e-15 * Math.pow(e / 2 / 1e4, -2.5) / 6;
@@ -24,5 +26,9 @@ describe('skyspan expect-gamma', () => {
       expect(row[iK] / expected - 1).toBeGreaterThan(-1e-4);
     }
     expect(readFileSync(join(dir, 'expected-gamma.md'), 'utf8')).toMatch(/hadronic/);
+    // A sample count that is not an integer is a usage error (exit 2), not NaN samples.
+    const err: string[] = [];
+    expect(await runCli(['expect-gamma', '--neutrino', nu, '--factors', factors, '--samples', 'many'], { out: () => {}, err: (t) => { err.push(t); } })).toBe(2);
+    expect(err.join('')).toMatch(/--samples is 'many', expected an integer/);
   });
 });

@@ -37,7 +37,8 @@ describe('reverse direction: expected gamma rays in a survey footprint', () => {
     const kpi = r.methods.find((x) => x.id === 'kpi')!;
     const ePos = Array.from(r.energiesGammaGeV).findIndex((x) => x > 1e4);
     const e = r.energiesGammaGeV[ePos];
-    // I_gamma(E) = (P / k_I) I_nu,all(E/2) / 6, k_I the weighted median of {2, 3} = 2.5, I_nu,all = 3 x the mu flavour
+    // I_gamma(E) = (P / k_I) I_nu,all(E/2) / 6 (K_pi rule, Ahlers & Halzen 2018, inverted; from memory), k_I the
+    // weighted median of {2, 3} = 2.5 (midpoint of an even count, common practice), I_nu,all = 3 x the mu flavour
     expect(kpi.atEnergies[ePos] / ((1 / 2.5) / 6 * 3e-15 * Math.pow(e / 2 / 1e4, -2.5)) - 1).toBeCloseTo(0, 10);
   });
 });

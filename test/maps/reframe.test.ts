@@ -4,7 +4,7 @@
  * matrix; accuracy figures as documented in reframe.ts); (2) against healpy
  * 1.16's Rotator(coord=['G','C']).rotate_map_pixel (Debian python3-healpy,
  * scripts/healpy_reference.py), which uses the same four-pixel scheme and
- * healpy's own Galactic matrix (4e-8 from the Hipparcos one, REFERENCES).
+ * healpy's own Galactic matrix (4e-8 from the Hipparcos one, computed with healpy).
  */
 import { describe, expect, it } from 'vitest';
 import { reframe } from '../../src/maps/reframe.js';

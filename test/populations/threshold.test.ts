@@ -32,8 +32,8 @@ const site: DetectionThreshold = {
 
 describe('detection thresholds', () => {
   it('scale with the inverse relative exposure and are infinite where the site sees nothing', () => {
-    // Relative exposure of a site at +30 deg, zenith <= 45 deg, normalised to its maximum (REFERENCES, computed
-    // with an independent numerical integration; Sommers 2001 eq. 2): 0 deg -> 0.591552, 30 deg -> 0.974231,
+    // Relative exposure of a site at +30 deg, zenith <= 45 deg, normalised to its maximum (computed
+    // with scipy, scripts/exposure_reference.py; Sommers 2001 eq. 2): 0 deg -> 0.591552, 30 deg -> 0.974231,
     // 60 deg -> 0.850181, -20 deg -> 0.
     const r = atEquatorial([[1, 30 * deg], [2, 0], [3, 60 * deg], [4, -20 * deg]], [1, 1, 1, 1]);
     const t = thresholdsOf(r, { ...site, psfRad: null });

@@ -65,7 +65,7 @@ describe('relative exposure of a ground site (Sommers 2001, Astropart. Phys. 14,
     expect(relativeExposure(d(90), d(60), d(45), 'zenith')).toBeCloseTo(Math.PI * Math.sin(d(60)), 12);
   });
 
-  it('spot values for a site at +30 deg with a 45 deg cut, normalised to max 1 (computed by scipy integration; REFERENCES)', () => {
+  it('spot values for a site at +30 deg with a 45 deg cut, normalised to max 1 (computed by scipy integration, scripts/exposure_reference.py)', () => {
     const { max, decRad } = exposureNormalisation(d(30), d(45), 'zenith');
     const rel = (dec: number): number => relativeExposure(d(dec), d(30), d(45), 'zenith') / max;
     expect(rel(0)).toBeCloseTo(0.591552, 6);
@@ -75,7 +75,7 @@ describe('relative exposure of a ground site (Sommers 2001, Astropart. Phys. 14,
     expect(rel(75)).toBe(0);
     expect((decRad * 180) / Math.PI).toBeCloseTo(39.6097, 4);
     expect(max).toBeCloseTo(0.845234, 6);
-    // time-weighted maximum alpha_m = 0.955317 rad at dec 45 deg (REFERENCES, computed)
+    // time-weighted maximum alpha_m = 0.955317 rad at dec 45 deg (scipy, scripts/exposure_reference.py)
     const t = exposureNormalisation(d(30), d(45), 'time');
     expect(t.max).toBeCloseTo(0.955317, 6);
     expect((t.decRad * 180) / Math.PI).toBeCloseTo(45, 4);

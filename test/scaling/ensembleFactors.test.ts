@@ -88,6 +88,7 @@ describe('against healpy + numpy (scripts/factor_reference.py)', () => {
           measured: 'survey', targets: ['strip', 'sky'], mode: 'centre' }, ev);
         // The exposure went through Float32 on our side: 1e-6 relative covers it.
         const tol = (x: number, y: number) => expect(Math.abs(x / y - 1)).toBeLessThan(exposure ? 1e-6 : 1e-12);
+        expect(r.rows.length).toBeGreaterThan(0);
         for (const row of r.rows) {
           const t = ref.targets[row.target === 'strip' ? 'strip' : 'sky'];
           tol(row.meanMeasured, ref.meanMeasured);

@@ -2,9 +2,8 @@
  * Galactic <-> equatorial rotation (src/sphere/frameRotation.ts).
  *
  * Sources: the Hipparcos catalogue (ESA 1997, vol. 1, section 1.5.3) gives the
- * North Galactic Pole at RA 192.85948 deg, Dec +27.12825 deg (from memory, see
- * REFERENCES), and the matrix puts the Galactic centre at RA 266.40500 deg,
- * Dec -28.93617 deg (computed from the matrix, REFERENCES). Astropy 5.2 (Debian
+ * North Galactic Pole at RA 192.85948 deg, Dec +27.12825 deg (from memory), and the matrix puts the Galactic centre at RA 266.40500 deg,
+ * Dec -28.93617 deg (computed from the matrix in Python). Astropy 5.2 (Debian
  * python3-astropy) through scripts/astropy_frames.py is the outside reference.
  */
 import { describe, expect, it } from 'vitest';

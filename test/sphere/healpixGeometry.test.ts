@@ -2,7 +2,7 @@
  * HEALPix pixel centres and indices (src/sphere: ringTable, pixelIndex, bulk,
  * nside) against the formulas of Gorski et al. 2005 (ApJ 622, 759, section 4)
  * written out independently in gorskiFormulas.ts, against healpy 1.16 spot
- * values (Debian python3-healpy, listed in REFERENCES as computed), and against
+ * values (computed with Debian python3-healpy), and against
  * @hscmap/healpix through sphere/reference.ts; with seeded property tests.
  */
 import { describe, expect, it } from 'vitest';
@@ -51,7 +51,7 @@ describe('pixel centres against Gorski et al. 2005, section 4', () => {
   });
 });
 
-describe('healpy 1.16 spot values (computed, see REFERENCES)', () => {
+describe('healpy 1.16 spot values (computed with Debian python3-healpy)', () => {
   it('pix2ang(4, 0) = (0.2044802, pi/4)', () => {
     const th = new Float64Array(192), ph = new Float64Array(192);
     pixelCentres(4, 'RING', th, ph);

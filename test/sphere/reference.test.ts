@@ -1,6 +1,6 @@
 /**
  * The per-pixel reference wrappers (src/sphere/reference.ts) on healpy 1.16
- * spot values (REFERENCES, computed with Debian python3-healpy) and on the
+ * spot values (computed with Debian python3-healpy) and on the
  * definition of a disc (common practice, no source).
  */
 import { describe, expect, it } from 'vitest';

@@ -68,7 +68,7 @@ describe('analytic lines of sight', () => {
   });
 
   it('the Dickey & Lockman template column toward b = 90 deg is 3.10e20 cm^-2 (6.20e20 through the disc) to 0.1 percent', () => {
-    // Dickey & Lockman 1990 (ARA&A 28, 215) via Ferriere 2001 eq. 8; 3.10e20 cm^-2 to one pole (REFERENCES, computed);
+    // Dickey & Lockman 1990 (ARA&A 28, 215) via Ferriere 2001 eq. 8; 3.10e20 cm^-2 to one pole (computed with scipy, scripts/templates_reference.py dlcolumn);
     // closed form sqrt(pi/2)(0.395*90 + 0.107*225) + 0.064*403 pc cm^-3 = 3.10175e20 cm^-2 (scipy quad agrees, models.test.ts).
     const s = spec('gas: [{component: hiDickeyLockman}]\ncosmicRays: {distribution: constant}');
     const k = prepareIntegration(s, null, 0, null);

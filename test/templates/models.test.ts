@@ -45,7 +45,7 @@ describe('gas models', () => {
     // Closed form: sqrt(pi/2) (0.395 * 90 + 0.107 * 225) + 0.064 * 403 pc cm^-3 (computed by hand).
     const closed = (Math.sqrt(Math.PI / 2) * (0.395 * 90 + 0.107 * 225) + 0.064 * 403) * 3.085677581491367e18;
     expect(Math.abs(closed / ref.pole_cm2 - 1)).toBeLessThan(1e-9);
-    expect(Math.abs(ref.pole_cm2 / 3.10e20 - 1)).toBeLessThan(1e-3); // 3.10e20 cm^-2 (REFERENCES, computed)
+    expect(Math.abs(ref.pole_cm2 / 3.10e20 - 1)).toBeLessThan(1e-3); // 3.10e20 cm^-2 (scipy quad, scripts/templates_reference.py dlcolumn)
   });
   it('the HI disc equals Dickey & Lockman at the Sun and flares beyond it', () => {
     const p = { ...HI_DISC_DEFAULTS, rSunKpc: 8.5 };

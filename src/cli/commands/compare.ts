@@ -9,11 +9,9 @@
 import type { Command } from 'commander';
 import { join } from 'node:path';
 import { UsageError } from '../../core/errors.js';
-import { checkWritable, writeFileAtomic } from '../../io/atomicWrite.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
 import { readSpectrumPoints } from '../../physics/points.js';
 import { energyToGeV } from '../../physics/units.js';
-import type { MethodId } from '../../compare/conversion.js';
 import { readFactors } from '../../compare/factorsFile.js';
 import { readMeasurement } from '../../compare/measurement.js';
 import { predictNeutrinos } from '../../compare/predict.js';
@@ -21,31 +19,12 @@ import { renderComparison, type ComparisonReport } from '../../compare/report.js
 import { chiSquareOverPoints, compareAtReference } from '../../compare/tension.js';
 import { VERSION } from '../../version.js';
 import type { CliIo } from '../main.js';
+import { parseFormats, parseInteger, parseMethods, writeOutputs } from '../options.js';
 
 interface Options {
   gamma: string; factors: string; neutrino?: string; target?: string; e0?: string; energyUnit: string;
   methods: string; channel: string; flavourRatio: string; samples: string; seed: string;
   out?: string; format: string; force?: boolean; json?: boolean;
-}
-
-function parseInteger(text: string, name: string): number {
-  const v = Number(text);
-  if (!Number.isSafeInteger(v)) throw new UsageError(`${name} is '${text}', expected an integer`);
-  return v;
-}
-
-function parseMethods(text: string): MethodId[] {
-  const ms = text.split(',').map((s) => s.trim()).filter(Boolean).map((m) => (m === 'rule' ? 'kpi' : m));
-  for (const m of ms) if (m !== 'kab' && m !== 'kpi') throw new UsageError(`--methods has '${m}', expected kab and/or kpi (or rule)`);
-  if (ms.length === 0) throw new UsageError('--methods needs kab, kpi or both');
-  return [...new Set(ms)] as MethodId[];
-}
-
-function parseFormats(text: string): ('csv' | 'md' | 'json')[] {
-  const fs = text.split(',').map((s) => s.trim()).filter(Boolean);
-  for (const f of fs) if (f !== 'csv' && f !== 'md' && f !== 'json') throw new UsageError(`--format has '${f}', expected csv, md or json`);
-  if (fs.length === 0) throw new UsageError('--format needs at least one of csv, md, json');
-  return [...new Set(fs)] as ('csv' | 'md' | 'json')[];
 }
 
 function action(o: Options, io: CliIo): void {
@@ -86,13 +65,10 @@ function action(o: Options, io: CliIo): void {
       neutrino: o.neutrino ?? null, target: fac.target ?? null, created: new Date().toISOString() },
   };
   const files = renderComparison(report, formats);
-  const written: string[] = [];
-  if (o.out) {
-    const inputs = [o.gamma, o.factors, ...(o.neutrino ? [o.neutrino] : [])];
-    const paths = files.map((f) => ({ path: join(o.out!, f.name), text: f.text }));
-    for (const f of paths) checkWritable(f.path, { force: o.force, inputs });
-    for (const f of paths) { writeFileAtomic(f.path, f.text, { force: o.force, inputs }); written.push(f.path); }
-  }
+  const written = o.out
+    ? writeOutputs(files.map((f) => ({ path: join(o.out!, f.name), text: f.text })),
+      { force: o.force, inputs: [o.gamma, o.factors, ...(o.neutrino ? [o.neutrino] : [])] })
+    : [];
   for (const w of prediction.warnings) io.err(`skyspan: warning: ${w}\n`);
   if (o.json) { io.out(files.find((f) => f.name.endsWith('comparison.json'))?.text ?? renderComparison(report, ['json'])[0].text); return; }
   const c = prediction.components.find((x) => x.name === 'combined')!.atE0;

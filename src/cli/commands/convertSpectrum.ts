@@ -6,13 +6,13 @@
  */
 import type { Command } from 'commander';
 import { UsageError } from '../../core/errors.js';
-import { checkWritable, writeFileAtomic } from '../../io/atomicWrite.js';
 import { convertSpectrum, type ConversionResult } from '../../physics/hadronic/convert.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
 import { readSpectrumPoints, type SpectrumPoints } from '../../physics/points.js';
 import { energyFromGeV, energyUnitFactor, intensityFromInternal, intensityUnit } from '../../physics/units.js';
 import { pointsFromIntensity, type SpectrumPlotData } from '../../render/spectrumData.js';
 import type { CliIo } from '../main.js';
+import { writeOutputs } from '../options.js';
 
 interface Options {
   to: string; method: string; channel: string; flavourRatio: string; cutoff?: boolean;
@@ -82,13 +82,13 @@ function action(file: string, o: Options, io: CliIo): void {
   };
   if (o.out) {
     // Every output is checked before any is written, so a refused job writes nothing.
-    for (const ext of ['csv', 'md', 'json', 'plot.json']) checkWritable(`${o.out}.${ext}`, { force: o.force, inputs: [file] });
-    const w = (path: string, text: string) => writeFileAtomic(path, text, { force: o.force, inputs: [file] });
-    w(`${o.out}.csv`, info.map((l) => `# ${l}\n`).join('') + [header, ...rows].map((c) => c.join(',')).join('\n') + '\n');
-    w(`${o.out}.md`, info.map((l) => `- ${l}\n`).join('') + '\n| ' + header.join(' | ') + ' |\n|' + header.map(() => ' --- |').join('')
-      + '\n' + rows.map((c) => '| ' + c.join(' | ') + ' |').join('\n') + '\n');
-    w(`${o.out}.json`, JSON.stringify(doc, null, 2) + '\n');
-    w(`${o.out}.plot.json`, JSON.stringify(plotData(points, r), (_k, v) => (ArrayBuffer.isView(v) ? Array.from(v as Float64Array) : v), 2) + '\n');
+    writeOutputs([
+      { path: `${o.out}.csv`, text: info.map((l) => `# ${l}\n`).join('') + [header, ...rows].map((c) => c.join(',')).join('\n') + '\n' },
+      { path: `${o.out}.md`, text: info.map((l) => `- ${l}\n`).join('') + '\n| ' + header.join(' | ') + ' |\n|' + header.map(() => ' --- |').join('')
+        + '\n' + rows.map((c) => '| ' + c.join(' | ') + ' |').join('\n') + '\n' },
+      { path: `${o.out}.json`, text: JSON.stringify(doc, null, 2) + '\n' },
+      { path: `${o.out}.plot.json`, text: JSON.stringify(plotData(points, r), (_k, v) => (ArrayBuffer.isView(v) ? Array.from(v as Float64Array) : v), 2) + '\n' },
+    ], { force: o.force, inputs: [file] });
   }
   if (o.json) io.out(JSON.stringify(doc) + '\n');
   else {

@@ -3,18 +3,17 @@
  * (Mollweide, or a zoomed longitude/latitude window), with region outlines or
  * hatched masks from a region file.
  */
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { InputError, UsageError } from '../../core/errors.js';
+import { UsageError } from '../../core/errors.js';
 import { readSkyMap } from '../../io/mapFile.js';
 import { writeFileAtomic, checkWritable } from '../../io/atomicWrite.js';
-import { parseRegionDocument } from '../../regions/document.js';
 import { evaluateRegion } from '../../regions/evaluate.js';
 import { renderSkyMap, type ZoomWindowDeg } from '../../render/skyImage.js';
 import { isColourMapName } from '../../render/colourMap.js';
 import type { RegionOverlay } from '../../render/overlays.js';
 import type { CliIo } from '../main.js';
+import { readRegionFile } from '../options.js';
 
 interface Options {
   out: string; column?: string; plane: string; scale: string; min?: string; max?: string; softening?: string;
@@ -52,11 +51,7 @@ function frameOption(name: string, v: string | undefined): 'galactic' | 'equator
 
 function overlays(file: string, names: string | undefined, nside: number): RegionOverlay[] {
   if (!names) return [];
-  let text: string;
-  try { text = readFileSync(file, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read the region file (${(e as NodeJS.ErrnoException).code ?? String(e)})`, { file });
-  }
-  const doc = parseRegionDocument(text, file);
+  const doc = readRegionFile(file);
   // Depth 2 (16 sub-pixels per pixel) is ample for the fraction > 0.5 boundary that is drawn.
   return names.split(',').map((n) => n.trim()).filter((n) => n).map((name) => {
     const w = evaluateRegion(doc, name, { nside, frame: 'galactic', mode: 'fraction', depth: 2 });

@@ -8,13 +8,12 @@
 import type { Command } from 'commander';
 import { join } from 'node:path';
 import { UsageError } from '../../core/errors.js';
-import { checkWritable, writeFileAtomic } from '../../io/atomicWrite.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
-import type { MethodId } from '../../compare/conversion.js';
 import { readFactors } from '../../compare/factorsFile.js';
 import { readMeasurement } from '../../compare/measurement.js';
 import { expectedGamma } from '../../compare/reverse.js';
 import type { CliIo } from '../main.js';
+import { parseFormats, parseInteger, parseMethods, writeOutputs } from '../options.js';
 
 interface Options {
   neutrino: string; factors: string; target?: string; methods: string; channel: string; flavourRatio: string;
@@ -24,15 +23,13 @@ interface Options {
 const fmt = (x: number) => (Number.isFinite(x) ? x.toPrecision(5) : '');
 
 function action(o: Options, io: CliIo): void {
-  const methods = o.methods.split(',').map((s) => s.trim()).filter(Boolean).map((m) => (m === 'rule' ? 'kpi' : m));
-  for (const m of methods) if (m !== 'kab' && m !== 'kpi') throw new UsageError(`--methods has '${m}', expected kab and/or kpi`);
-  const formats = o.format.split(',').map((s) => s.trim()).filter(Boolean);
-  for (const f of formats) if (!['csv', 'md', 'json'].includes(f)) throw new UsageError(`--format has '${f}', expected csv, md or json`);
+  const methods = parseMethods(o.methods);
+  const formats = parseFormats(o.format);
   if (o.channel !== 'pp' && o.channel !== 'pgamma') throw new UsageError(`--channel is '${o.channel}', expected pp or pgamma`);
-  const samples = Number(o.samples), seed = Number(o.seed);
+  const samples = parseInteger(o.samples, '--samples'), seed = parseInteger(o.seed, '--seed');
   const m = readMeasurement(o.neutrino);
   const fac = readFactors(o.factors, { target: o.target, energyGeV: m.kind === 'points' ? undefined : 2 * m.e0GeV });
-  const r = expectedGamma({ measurement: m, factors: fac.factors, methods: methods as MethodId[], channel: o.channel as 'pp' | 'pgamma',
+  const r = expectedGamma({ measurement: m, factors: fac.factors, methods, channel: o.channel as 'pp' | 'pgamma',
     flavourRatio: parseFlavourRatio(o.flavourRatio), samples, seed });
   const header = ['energyGeV', ...r.components.flatMap((c) => [`${c.name}_p16`, `${c.name}_p50`, `${c.name}_p84`]), ...r.methods.map((x) => `method_${x.id}`)];
   const rows = Array.from(r.energiesGammaGeV, (e, j) => [fmt(e), ...r.components.flatMap((c) => [c.atEnergies[j].p16, c.atEnergies[j].median, c.atEnergies[j].p84].map(fmt)),
@@ -46,11 +43,7 @@ function action(o: Options, io: CliIo): void {
   if (formats.includes('md')) files.push({ name: 'expected-gamma.md', text: '# Expected gamma rays in the survey footprint\n\n' + info.map((l) => `- ${l}\n`).join('')
     + `\n| ${header.join(' | ')} |\n|${header.map(() => ' --- |').join('')}\n` + rows.map((c) => `| ${c.join(' | ')} |`).join('\n') + '\n' });
   if (formats.includes('json')) files.push({ name: 'expected-gamma.json', text: JSON.stringify(doc, null, 2) + '\n' });
-  if (o.out) {
-    const inputs = [o.neutrino, o.factors];
-    for (const f of files) checkWritable(join(o.out, f.name), { force: o.force, inputs });
-    for (const f of files) writeFileAtomic(join(o.out, f.name), f.text, { force: o.force, inputs });
-  }
+  if (o.out) writeOutputs(files.map((f) => ({ path: join(o.out!, f.name), text: f.text })), { force: o.force, inputs: [o.neutrino, o.factors] });
   for (const w of r.warnings) io.err(`skyspan: warning: ${w}\n`);
   if (o.json) io.out(JSON.stringify(doc) + '\n');
   else {

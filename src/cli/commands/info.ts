@@ -52,6 +52,7 @@ function text(d: FitsDescription, maps: ReturnType<typeof mapInfo>[]): string {
   return lines.join('\n') + '\n';
 }
 
+/** Registers `skyspan info`. */
 export function register(program: Command, io: CliIo): void {
   program
     .command('info')

@@ -3,35 +3,24 @@
  * writes it as a FITS map of covered fractions (plus the relative exposure
  * with --exposure), or prints a summary.
  */
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { InputError, UsageError } from '../../core/errors.js';
-import { parseRegionDocument } from '../../regions/document.js';
 import { evaluateRegion } from '../../regions/evaluate.js';
 import { writeRegionMask } from '../../regions/mask.js';
 import { VERSION } from '../../version.js';
 import type { CliIo } from '../main.js';
+import { parseInteger, readRegionFile } from '../options.js';
 
 interface Options {
   out?: string; nside: string; frame: string; centre?: boolean; depth?: string; exposure?: boolean; force?: boolean; json?: boolean;
 }
 
-function parseIntOption(name: string, v: string): number {
-  const n = Number(v);
-  if (!Number.isInteger(n)) throw new UsageError(`${name} is '${v}', expected an integer`);
-  return n;
-}
-
 function action(file: string, name: string, o: Options, io: CliIo): void {
   if (o.frame !== 'galactic' && o.frame !== 'equatorial') throw new UsageError(`--frame is '${o.frame}', expected galactic or equatorial`);
-  const nside = parseIntOption('--nside', o.nside);
-  const depth = o.depth === undefined ? undefined : parseIntOption('--depth', o.depth);
-  let text: string;
-  try { text = readFileSync(file, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read the region file (${(e as NodeJS.ErrnoException).code ?? String(e)})`, { file });
-  }
-  const doc = parseRegionDocument(text, file);
+  const nside = parseInteger(o.nside, '--nside');
+  const depth = o.depth === undefined ? undefined : parseInteger(o.depth, '--depth');
+  const doc = readRegionFile(file);
   const t0 = Date.now();
   const w = evaluateRegion(doc, name, { nside, frame: o.frame, mode: o.centre ? 'centre' : 'fraction', depth });
   const seconds = (Date.now() - t0) / 1000;

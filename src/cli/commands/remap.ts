@@ -27,6 +27,7 @@ function choice<T extends string>(value: string | undefined, option: string, all
   return v;
 }
 
+/** Registers `skyspan remap`. */
 export function register(program: Command, io: CliIo): void {
   program
     .command('remap')

@@ -26,7 +26,7 @@ describe('ppEmissivity', () => {
   });
 
   it('method difference for an E^-2 proton spectrum: KAB flavour-averaged nu/gamma E^2 ratio 0.35..0.37 (1-10 TeV), all-flavour 1.06..1.12', () => {
-    // Expectation from the KAB 2006 functions (computed with scipy from the same forms, REFERENCES [computed]):
+    // Expectation from the KAB 2006 functions (computed with scipy from the same forms, from memory; scripts/kab_reference.py family):
     // (1/3) sum_f E_nu^2 Q_nu(E_gamma/2) / E_gamma^2 Q_gamma(E_gamma) = 0.354 (1 TeV), 0.363 (10 TeV), 0.373 (100 TeV).
     // The quantity the rule fixes at K_pi/4 = 0.5 is this flavour-averaged one (Ahlers & Halzen 2018); the
     // all-flavour sum is three times it (rule: 1.5).
@@ -41,7 +41,7 @@ describe('ppEmissivity', () => {
       const rule = en * en * kpiNeutrinoFromGamma((e) => ppEmissivity('gamma', e, pl(2)), en);
       expect(rule / g / 3).toBeCloseTo(0.5, 10);
     }
-    // E^-2.7 at 100 TeV: 0.406 (REFERENCES [computed])
+    // E^-2.7 at 100 TeV: 0.406 (computed the same way with scipy)
     const g = 1e10 * ppEmissivity('gamma', 1e5, pl(2.7)), nu = 2.5e9 * ppEmissivity('neutrinoAllFlavour', 5e4, pl(2.7));
     expect(nu / g / 3).toBeCloseTo(0.4057, 3);
   });
