@@ -64,7 +64,7 @@ export function hiDiscCm3(p: HiDiscParams, rKpc: number, zKpc: number): number {
 
 /**
  * HI after Nakanishi & Sofue 2003 (PASJ 55, 191), in the analytic fit read in a
- * public transcription (midplane 0.94 (0.6 e^{-R/2.4} + 0.24 e^{-((R - 9.5)/4.8)^2}) cm^-3,
+ * secondary public source (midplane 0.94 (0.6 e^{-R/2.4} + 0.24 e^{-((R - 9.5)/4.8)^2}) cm^-3,
  * half width at half maximum 1.06 (116.3 + 19.3 R + 4.1 R^2 - 0.05 R^3) pc, profile
  * n0 2^{-(z/z_half)^2}; the factors 0.94 and 1.06 rescale the paper's R_0 = 8 kpc to 8.5 kpc).
  * Valid for R up to about 30 kpc (the cubic turns over near R = 55 kpc).
@@ -93,8 +93,8 @@ export function h2FerriereCm3(rSunKpc: number, rKpc: number, zKpc: number): numb
 
 /**
  * H2 molecules after Nakanishi & Sofue 2006 (PASJ 58, 847) in the analytic fit
- * read in a public transcription: midplane 0.94 (11.2 e^{-R^2/0.874} + 0.83 e^{-((R - 4)/3.2)^2}) cm^-3,
- * half width at half maximum 1.06 (10.8 e^{0.28 R} + 42.78) pc (another transcription
+ * read in a secondary public source: midplane 0.94 (11.2 e^{-R^2/0.874} + 0.83 e^{-((R - 4)/3.2)^2}) cm^-3,
+ * half width at half maximum 1.06 (10.8 e^{0.28 R} + 42.78) pc (another secondary source
  * has 11.2 for 10.8), profile n0 2^{-(z/z_half)^2}. Low confidence: the paper's abstract
  * (read) gives a thickness rising from 48 to 160 pc over R = 0-11 kpc, while this fit's
  * half width is 57 pc at R = 0 and 278 pc at R = 11 kpc.

@@ -74,7 +74,7 @@ describe('round trips and the bulk rotation', () => {
 });
 
 // astropy defines the Galactic frame from FK4 (B1950) through its own chain of
-// transformations; the Hipparcos matrix is a ten-digit transcription of that
+// transformations; the Hipparcos matrix is a ten-digit rounding of that
 // definition tied to ICRS. The two differ by up to 7e-6 deg (1.2e-7 rad); we
 // allow 1e-5 deg, the precision to which the matrix reproduces the published
 // pole and centre.

@@ -7,11 +7,11 @@
  *
  * Equation numbers below are from memory (gamma rays eq. 58, electrons eq. 62,
  * muon neutrinos from pions eq. 66, cross-section eq. 79).
- * Transcription: written from memory (the forms and coefficients below as
+ * Provenance: written from memory (the forms and coefficients below as
  * recalled, not read from the paper), not checked line
  * by line against the paper or its erratum (Phys. Rev. D 79, 039901, 2009),
  * whose text was not available to us. The tests therefore rest on physical
- * checks that do not depend on the transcription (energy fractions, the pion
+ * checks that do not depend on how the formulas were written down (energy fractions, the pion
  * kinematic limit, cross-section values).
  */
 import { MILLIBARN_CM2 } from '../constants.js';

@@ -8,7 +8,7 @@ import { integrateGL } from '../../../src/physics/quadrature.js';
 const energyFraction = (F: (x: number, e: number) => number, ep: number, hi = 1) =>
   integrateGL((l) => { const x = Math.exp(l); return x * x * F(x, ep); }, Math.log(1e-3), Math.log(hi), 48, 8);
 
-describe('KAB 2006 functions: physical checks that do not depend on the transcription', () => {
+describe('KAB 2006 functions: physical checks that do not depend on how the formulas were written down', () => {
   it('gamma rays carry 0.16 to 0.18 of the proton energy (x > 1e-3) for E_p = 1 TeV..1 PeV', () => {
     // Kelner, Aharonian & Bugayov 2006, Phys. Rev. D 74, 034018: K_pi ~ 0.17 for the gamma-ray energy fraction
     for (const ep of [1e3, 1e4, 1e5, 1e6]) {
@@ -47,7 +47,7 @@ describe('KAB 2006 functions: physical checks that do not depend on the transcri
     expect(ppInelasticCrossSectionMb(1e6)).toBeCloseTo(59.22, 1);
     expect(ppInelasticCrossSectionMb(1.22)).toBe(0);
   });
-  it('transcription spot values agree with an independent Python evaluation (forms from memory)', () => {
+  it('spot values of our written form agree with an independent Python evaluation (forms from memory)', () => {
     // computed in Python from the same forms (from memory), KAB 2006 eq. 58: F_gamma(0.1, 1 TeV) = 5.26490, (0.1, 100 TeV) = 5.51174,
     // (0.01, 1 TeV) = 176.520, (0.5, 1 TeV) = 0.0412058
     expect(kabGamma(0.1, 1e3)).toBeCloseTo(5.26490, 4);
