@@ -10,9 +10,9 @@
  * writeFileAtomic, so an interrupted write leaves no partial entry.
  */
 import { createHash } from 'node:crypto';
-import { existsSync, mkdirSync, readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { writeFileAtomic } from '../io/atomicWrite.js';
+import { ensureOutputFolder, writeFileAtomic } from '../io/atomicWrite.js';
 import { VERSION } from '../version.js';
 
 /** A cached entry: metadata and typed arrays. */
@@ -75,7 +75,7 @@ export class ArtefactCache {
   /** Stores an entry (no-op when the cache is off). */
   put(kind: string, key: string, label: string, entry: CacheEntry): void {
     if (!this.dir) return;
-    mkdirSync(this.dir, { recursive: true });
+    ensureOutputFolder(this.dir);
     const head = Buffer.from(JSON.stringify({ meta: entry.meta,
       arrays: entry.arrays.map((a) => ({ type: a instanceof Float32Array ? 'f32' : 'f64', length: a.length })) }), 'utf8');
     const chunks: Uint8Array[] = [];

@@ -9,9 +9,8 @@
  * in `cacheDir`, by default `.skyspan-cache` beside the output folder.
  */
 import { createHash } from 'node:crypto';
-import { mkdirSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
-import { checkWritable, writeFileAtomic } from '../io/atomicWrite.js';
+import { checkWritable, ensureOutputFolder, writeFileAtomic } from '../io/atomicWrite.js';
 import { sha256File } from '../io/hash.js';
 import { renderReport, type ReportFigure, type ReportTable } from '../render/report.js';
 import { renderComparison, summaryRows, type ComparisonReport } from '../compare/report.js';
@@ -159,7 +158,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
   const outputsList = outs.map((o) => ({ file: o.name, sha256: createHash('sha256').update(o.data).digest('hex') }));
   outs.push({ name: 'provenance.json', data: toJson({ ...provBase, outputs: outputsList }) });
 
-  mkdirSync(outDir, { recursive: true });
+  ensureOutputFolder(outDir);
   const wopts = { force: options.force, inputs: inputPaths };
   for (const o of outs) checkWritable(join(outDir, o.name), wopts);
   for (const o of outs) writeFileAtomic(join(outDir, o.name), o.data, wopts);

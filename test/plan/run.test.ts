@@ -7,7 +7,7 @@
  * numbers and bypassed with --no-cache, and existing outputs are refused
  * without --force.
  */
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runPlan } from '../../src/plan/runPlan.js';
@@ -139,5 +139,15 @@ describe('skyspan run', () => {
     expect(readFileSync(r.report!, 'utf8')).toContain('invented-nebulae');
     const bad = makePlanFixture({ absorption: 'none', extra: pop.replace('count: 300', 'count: -3') });
     await expect(runPlan(bad.plan, { outDir: join(bad.dir, 'out'), cache: false })).rejects.toThrow(/key populations\.count/);
+  }, 60000);
+  it('reports an output folder that cannot be made in one line, exit 1 (nothing-lost rule, common practice, no source)', async () => {
+    // A path under a regular file cannot be a folder (ENOTDIR), even for root.
+    const blocker = join(fx.dir, 'a-file');
+    writeFileSync(blocker, 'not a folder');
+    let err = '';
+    const code = await runCli(['run', fx.plan, '-o', join(blocker, 'out'), '--no-cache'], { out: () => {}, err: (t) => { err += t; } });
+    expect(code).toBe(1);
+    expect(err.trim().split('\n')).toHaveLength(1);
+    expect(err).toMatch(/^skyspan: .*a-file\/out: cannot create the output folder: ENOTDIR/);
   }, 60000);
 });
