@@ -87,7 +87,7 @@ export function evaluateRegion(doc: RegionDocument, name: string, opts: Evaluate
   if (prog.usesOther) notes.push(`shapes drawn in the other frame are tested on pixel centres rotated out of the ${opts.frame} frame`);
   if (solidAngleSr === 0) notes.push(`region ${name} covers no pixel at Nside ${opts.nside}`);
   const exposure = prog.site ? fillExposure(prog, opts.nside, fraction, spans, baseDir, doc.file, notes) : null;
-  return { nside: opts.nside, frame: opts.frame, name, mode, fraction, exposure, solidAngleSr, notes };
+  return { nside: opts.nside, frame: opts.frame, name, mode, fraction, exposure, solidAngleSr, notes, ringSpans: spans };
 }
 
 /** Pixel index range [j0, j1] of the ring pixels with phi0 + j dphi in [s, e]. */

@@ -74,4 +74,11 @@ export interface RegionWeights {
   solidAngleSr: number;
   /** What was assumed or approximated, one sentence each. */
   notes: string[];
+  /**
+   * Optional ring bounds of the nonzero pixels: for ring r (0-based, north to
+   * south), only pixels j = ringSpans[2r] .. ringSpans[2r + 1] of the ring can
+   * have a nonzero fraction or exposure (-1: none on that ring). Lets readers
+   * skip the untouched sky; absent means every pixel must be looked at.
+   */
+  ringSpans?: Int32Array;
 }

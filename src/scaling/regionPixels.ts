@@ -9,6 +9,7 @@
 import { ComputeError } from '../core/errors.js';
 import type { FrameName } from '../sphere/frames.js';
 import { nside2npix, pixelAreaSr } from '../sphere/nside.js';
+import { ringTable } from '../sphere/ringTable.js';
 
 /**
  * The shape of the regions layer's `RegionWeights` that the factors need
@@ -25,6 +26,12 @@ export interface RegionWeightsLike {
   readonly exposure: Float32Array | null;
   readonly solidAngleSr: number;
   readonly notes: string[];
+  /**
+   * Optional ring bounds of the nonzero pixels (see the regions layer's
+   * `RegionWeights.ringSpans`): pixels j = ringSpans[2r] .. ringSpans[2r + 1]
+   * of ring r, -1 for none. When given, only those pixels are read.
+   */
+  readonly ringSpans?: Int32Array;
 }
 
 /** Sparse pixel weights of one region at one Nside (see module doc). */
@@ -53,6 +60,8 @@ export interface RegionPixels {
  * false drops the exposure (an unweighted region). Fractions outside [0, 1] or
  * non-finite, and exposures that are negative or non-finite, are rejected with
  * a ComputeError naming the region (the regions layer should never emit them).
+ * With `w.ringSpans` only the pixels inside the ring bounds are read (the rest
+ * are zero by that field's contract); the result is the same as a full scan.
  */
 export function toRegionPixels(w: RegionWeightsLike, useExposure = true): RegionPixels {
   const npix = nside2npix(w.nside);
@@ -64,13 +73,67 @@ export function toRegionPixels(w: RegionWeightsLike, useExposure = true): Region
   if (e && e.length !== npix) {
     throw new ComputeError(`region '${w.name}': ${e.length} exposure values, expected ${npix} for Nside ${w.nside}`);
   }
-  let n = 0, allOne = e === null;
-  let sum = 0, comp = 0; // Neumaier (1974) compensated sum of the fractions
-  for (let p = 0; p < npix; p++) {
-    const v = f[p];
-    if (!(v >= 0 && v <= 1)) {
-      throw new ComputeError(`region '${w.name}': covered fraction ${v} at RING pixel ${p} is outside 0..1`);
+  const spans = w.ringSpans;
+  const rings = ringTable(w.nside);
+  if (spans && spans.length !== 2 * rings.count) {
+    throw new ComputeError(`region '${w.name}': ${spans.length} ring bounds, expected ${2 * rings.count} for Nside ${w.nside}`);
+  }
+  // pixel runs [a, b) to read: one per ring with ring bounds, else the whole map in blocks;
+  // each run goes through a small kernel (compiled early as a hot function; same order of additions)
+  const runs = spans ? rings.count : Math.ceil(npix / BLOCK);
+  const st = new Float64Array(4); // [sum, compensation (Neumaier 1974), count of f > 0, bad pixel or -1]
+  let allOne = e === null;
+  for (let r = 0; r < runs; r++) {
+    if (spans) {
+      const j0 = spans[2 * r], j1 = spans[2 * r + 1];
+      if (j0 !== 0 || j1 !== rings.length[r] - 1) allOne = false;
+      if (j0 < 0) continue;
+      if (!(j1 >= j0 && j1 < rings.length[r])) {
+        throw new ComputeError(`region '${w.name}': ring bounds ${j0}..${j1} of ring ${r} do not fit its ${rings.length[r]} pixels`);
+      }
     }
+    const a = spans ? rings.first[r] + spans[2 * r] : r * BLOCK;
+    const b = spans ? rings.first[r] + spans[2 * r + 1] + 1 : Math.min(npix, a + BLOCK);
+    const one = scanRun(f, a, b, st);
+    if (st[3] >= 0) {
+      throw new ComputeError(`region '${w.name}': covered fraction ${f[st[3]]} at RING pixel ${st[3]} is outside 0..1`);
+    }
+    if (!one) allOne = false;
+  }
+  const n = st[2], sum = st[0], comp = st[1];
+  const base = { name: w.name, nside: w.nside, frame: w.frame, mode: w.mode, notes: [...w.notes] };
+  if (allOne) return { ...wholeSkyPixels(w.name, w.nside, w.frame, w.mode), notes: base.notes };
+  const index = new Uint32Array(n);
+  const fraction = new Float32Array(n);
+  const exposure = e ? new Float32Array(n) : null;
+  let k = 0;
+  for (let r = 0; r < runs; r++) {
+    if (spans && spans[2 * r] < 0) continue;
+    const a = spans ? rings.first[r] + spans[2 * r] : r * BLOCK;
+    const b = spans ? rings.first[r] + spans[2 * r + 1] + 1 : Math.min(npix, a + BLOCK);
+    k = collectRun(f, e, a, b, index, fraction, exposure, k, st);
+    if (st[3] >= 0) {
+      throw new ComputeError(`region '${w.name}': exposure ${e![st[3]]} at RING pixel ${st[3]} is negative or not finite`);
+    }
+  }
+  const pixelCount = sum + comp;
+  return { ...base, full: false, index, fraction, exposure, pixelCount, solidAngleSr: pixelCount * pixelAreaSr(w.nside) };
+}
+
+/** Pixels per run when the whole map is read. */
+const BLOCK = 16384;
+
+/**
+ * Checks f[a..b) and adds its positive values to the compensated sum in st
+ * (st[0] sum, st[1] compensation, st[2] count); st[3] gets the first pixel
+ * outside 0..1 (else -1). Returns whether every value was exactly 1.
+ */
+function scanRun(f: Float32Array, a: number, b: number, st: Float64Array): boolean {
+  let sum = st[0], comp = st[1], n = st[2], allOne = true;
+  st[3] = -1;
+  for (let p = a; p < b; p++) {
+    const v = f[p];
+    if (!(v >= 0 && v <= 1)) { st[3] = p; break; }
     if (v > 0) {
       n++;
       const t = sum + v;
@@ -79,29 +142,32 @@ export function toRegionPixels(w: RegionWeightsLike, useExposure = true): Region
     }
     if (v !== 1) allOne = false;
   }
-  const base = { name: w.name, nside: w.nside, frame: w.frame, mode: w.mode, notes: [...w.notes] };
-  if (allOne) return { ...wholeSkyPixels(w.name, w.nside, w.frame, w.mode), notes: base.notes };
-  const index = new Uint32Array(n);
-  const fraction = new Float32Array(n);
-  const exposure = e ? new Float32Array(n) : null;
-  let k = 0;
-  for (let p = 0; p < npix; p++) {
+  st[0] = sum; st[1] = comp; st[2] = n;
+  return allOne;
+}
+
+/**
+ * Appends the pixels of f[a..b) with f > 0 (index, fraction, exposure) from
+ * slot k on; returns the next slot. st[3] gets the first pixel whose exposure
+ * is negative or not finite (else -1).
+ */
+function collectRun(f: Float32Array, e: Float32Array | null, a: number, b: number, index: Uint32Array,
+  fraction: Float32Array, exposure: Float32Array | null, k: number, st: Float64Array): number {
+  st[3] = -1;
+  for (let p = a; p < b; p++) {
     const v = f[p];
     if (v > 0) {
       index[k] = p;
       fraction[k] = v;
       if (exposure) {
         const x = e![p];
-        if (!(x >= 0 && x < Infinity)) {
-          throw new ComputeError(`region '${w.name}': exposure ${x} at RING pixel ${p} is negative or not finite`);
-        }
+        if (!(x >= 0 && x < Infinity)) { st[3] = p; return k; }
         exposure[k] = x;
       }
       k++;
     }
   }
-  const pixelCount = sum + comp;
-  return { ...base, full: false, index, fraction, exposure, pixelCount, solidAngleSr: pixelCount * pixelAreaSr(w.nside) };
+  return k;
 }
 
 /** The whole sky as {@link RegionPixels} (full, unweighted), without any per-pixel array. */

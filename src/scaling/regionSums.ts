@@ -48,12 +48,36 @@ export function regionSums(
   const idx = r.index, fr = r.fraction, ex = r.exposure, n = idx.length;
   const oIdx = other && !other.full ? other.index : null;
   const oFr = other ? other.fraction : null;
-  const oN = oIdx ? oIdx.length : 0;
   const crossAll = other !== null && other.full;
-  let j = 0;
-  let sWF = 0, cWF = 0, sWFT = 0, cWFT = 0, sF = 0, cF = 0, sFT = 0, cFT = 0, sX = 0, cX = 0;
-  let blankCount = 0, blankF = 0, negCount = 0, validCount = 0;
-  for (let k = 0; k < n; k++) {
+  // the pixels go in blocks through one small kernel (compiled early as a hot function, see
+  // wholeSkySums); the state is carried exactly, so the sums are those of one plain loop
+  const st = new Float64Array(ST_LENGTH);
+  for (let k = 0; k < n; k += SUM_BLOCK) {
+    sumBlock(plane, nside, nested, idx, fr, ex, oIdx, oFr, crossAll, k, k + SUM_BLOCK < n ? k + SUM_BLOCK : n, st);
+  }
+  out[S.WF] = st[0] + st[1];
+  out[S.WFT] = st[2] + st[3];
+  out[S.F] = st[4] + st[5];
+  out[S.FT] = st[6] + st[7];
+  out[S.CROSS] = st[8] + st[9];
+  out[S.BLANK_COUNT] = st[10];
+  out[S.BLANK_F] = st[11];
+  out[S.NEG_COUNT] = st[12];
+  out[S.VALID_COUNT] = st[13];
+}
+
+/** Listed pixels per call of {@link sumBlock}. */
+const SUM_BLOCK = 16384;
+/** State of {@link sumBlock}: five (sum, compensation) pairs, four counts or sums, the merge position. */
+const ST_LENGTH = 15;
+
+/** The loop of {@link regionSums} over list entries k0..k1-1, continuing the state in st. */
+function sumBlock(plane: MapArray, nside: number, nested: boolean, idx: Uint32Array, fr: Float32Array, ex: Float32Array | null,
+  oIdx: Uint32Array | null, oFr: Float32Array | null, crossAll: boolean, k0: number, k1: number, st: Float64Array): void {
+  const oN = oIdx ? oIdx.length : 0;
+  let sWF = st[0], cWF = st[1], sWFT = st[2], cWFT = st[3], sF = st[4], cF = st[5], sFT = st[6], cFT = st[7], sX = st[8], cX = st[9];
+  let blankCount = st[10], blankF = st[11], negCount = st[12], validCount = st[13], j = st[14];
+  for (let k = k0; k < k1; k++) {
     const p = idx[k];
     const v = plane[nested ? ringToNest(nside, p) : p];
     const f = fr[k];
@@ -91,15 +115,8 @@ export function regionSums(
       sX = t;
     }
   }
-  out[S.WF] = sWF + cWF;
-  out[S.WFT] = sWFT + cWFT;
-  out[S.F] = sF + cF;
-  out[S.FT] = sFT + cFT;
-  out[S.CROSS] = sX + cX;
-  out[S.BLANK_COUNT] = blankCount;
-  out[S.BLANK_F] = blankF;
-  out[S.NEG_COUNT] = negCount;
-  out[S.VALID_COUNT] = validCount;
+  st[0] = sWF; st[1] = cWF; st[2] = sWFT; st[3] = cWFT; st[4] = sF; st[5] = cF; st[6] = sFT; st[7] = cFT; st[8] = sX; st[9] = cX;
+  st[10] = blankCount; st[11] = blankF; st[12] = negCount; st[13] = validCount; st[14] = j;
 }
 
 /**
@@ -109,16 +126,13 @@ export function regionSums(
  */
 export function wholeSkySums(plane: MapArray, out: Float64Array): void {
   const n = plane.length;
-  let s = 0, c = 0, blank = 0, neg = 0;
-  for (let p = 0; p < n; p++) {
-    const v = plane[p];
-    if (!(v - v === 0) || (v >= BLANK_LO && v <= BLANK_HI)) { blank++; continue; }
-    if (v < 0) neg++;
-    const t = s + v;
-    if (Math.abs(s) >= Math.abs(v)) c += (s - t) + v; else c += (v - t) + s;
-    s = t;
-  }
-  const valid = n - blank, sum = s + c;
+  // the pass goes in blocks through one small kernel, so that the kernel is compiled as an
+  // ordinary hot function early on (one long loop in a single call runs slower, measured);
+  // the order of the additions is the same as one plain loop
+  const st = new Float64Array(4); // running sum, compensation, blank count, negative count
+  for (let a = 0; a < n; a += SKY_BLOCK) skyBlock(plane, a, a + SKY_BLOCK < n ? a + SKY_BLOCK : n, st);
+  const blank = st[2], neg = st[3];
+  const valid = n - blank, sum = st[0] + st[1];
   out[S.WF] = valid;
   out[S.WFT] = sum;
   out[S.F] = valid;
@@ -128,4 +142,21 @@ export function wholeSkySums(plane: MapArray, out: Float64Array): void {
   out[S.BLANK_F] = blank;
   out[S.NEG_COUNT] = neg;
   out[S.VALID_COUNT] = valid;
+}
+
+/** Pixels per call of {@link skyBlock}. */
+const SKY_BLOCK = 16384;
+
+/** Neumaier sum of the valid values of plane[a..b), continuing the state in st (see wholeSkySums). */
+function skyBlock(plane: MapArray, a: number, b: number, st: Float64Array): void {
+  let s = st[0], c = st[1], blank = st[2], neg = st[3];
+  for (let p = a; p < b; p++) {
+    const v = plane[p];
+    if (!(v - v === 0) || (v >= BLANK_LO && v <= BLANK_HI)) { blank++; continue; }
+    if (v < 0) neg++;
+    const t = s + v;
+    if (Math.abs(s) >= Math.abs(v)) c += (s - t) + v; else c += (v - t) + s;
+    s = t;
+  }
+  st[0] = s; st[1] = c; st[2] = blank; st[3] = neg;
 }
