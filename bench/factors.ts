@@ -12,15 +12,15 @@
  * Run alone: npx tsx bench/factors.ts   (template generated in bench/data/)
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, statSync } from 'node:fs';
+import { statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { benchTemplatePath, ensureBenchTemplate } from './benchTemplate.js';
 
 const HERE = dirname(fileURLToPath(import.meta.url));
 const ROOT = resolve(HERE, '..');
-const DATA = join(HERE, 'data');
 const NSIDE = Number(process.env.SKYSPAN_BENCH_NSIDE ?? 2048);
-const FITS = join(DATA, `factor-template-${NSIDE}.fits`);
+const FITS = benchTemplatePath(NSIDE);
 const PY = '/usr/bin/python3';
 const DISCS: [number, number][] = [[35, 0.5], [52, -1], [78.5, 2], [96, 0]];
 
@@ -82,11 +82,7 @@ function python(): { seconds: number; cpuSeconds: number; readSeconds: number; w
 
 /** Runs the benchmark and prints its figures (see module doc). */
 export async function benchFactors(): Promise<void> {
-  if (!existsSync(FITS)) {
-    mkdirSync(DATA, { recursive: true });
-    console.log(`generating ${FITS} with healpy (one-off)...`);
-    execFileSync(PY, [join(ROOT, 'scripts/make_bench_template.py'), FITS, String(NSIDE)], { stdio: 'inherit' });
-  }
+  ensureBenchTemplate(NSIDE);
   const mapBytes = 12 * NSIDE * NSIDE * 4;
   console.log(`template: Nside ${NSIDE}, float32, ${(statSync(FITS).size / 2 ** 20).toFixed(0)} MiB file, ${(mapBytes / 2 ** 20).toFixed(0)} MiB map`);
   const py = python();

@@ -12,15 +12,15 @@
  * Run alone: npx tsx bench/peakMemory.ts   (template generated in bench/data/)
  */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { existsSync, mkdirSync, statSync } from 'node:fs';
+import { existsSync, statSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { benchTemplatePath, ensureBenchTemplate } from './benchTemplate.js';
 
 const HERE = dirname(fileURLToPath(import.meta.url));
 const ROOT = resolve(HERE, '..');
-const DATA = join(HERE, 'data');
 const NSIDE = Number(process.env.SKYSPAN_BENCH_PEAK_NSIDE ?? 4096);
-const FITS = join(DATA, `factor-template-${NSIDE}.fits`);
+const FITS = benchTemplatePath(NSIDE);
 const TIME = '/usr/bin/time';
 
 const REGIONS = `frame: galactic
@@ -67,11 +67,7 @@ function runChild(kind: string): ChildResult & { timeMaxRssBytes: number | null 
 
 /** Runs the benchmark and prints its figures (see module doc). */
 export async function benchPeakMemory(): Promise<void> {
-  if (!existsSync(FITS)) {
-    mkdirSync(DATA, { recursive: true });
-    console.log(`generating ${FITS} with healpy (one-off, ${(12 * NSIDE * NSIDE * 4 / 1e6).toFixed(0)} MB)...`);
-    execFileSync('/usr/bin/python3', [join(ROOT, 'scripts/make_bench_template.py'), FITS, String(NSIDE)], { stdio: 'inherit' });
-  }
+  ensureBenchTemplate(NSIDE);
   const mapBytes = 12 * NSIDE * NSIDE * 4;
   const gib = (b: number) => `${(b / 2 ** 30).toFixed(2)} GiB`;
   console.log(`template: Nside ${NSIDE}, float32, 1 plane: ${gib(mapBytes)} of pixels, file ${gib(statSync(FITS).size)}`);
