@@ -6,10 +6,10 @@
  */
 import { Command, CommanderError } from 'commander';
 import { isSkyspanError } from '../core/errors.js';
-import { existsSync, unlinkSync } from 'node:fs';
+import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
-import { finishedOutputs, onTemporaryFileEvent, pendingTemporaryFiles, removePendingTemporaryFiles,
+import { finishedOutputs, onTemporaryFileEvent, pendingTemporaryFiles, removePendingTemporaryFiles, removeTemporary,
   type TemporaryFileEvent } from '../io/atomicWrite.js';
 import { registerCommands } from './commands/index.js';
 import { VERSION } from '../version.js';
@@ -143,7 +143,7 @@ export function runAsProgram(argv: string[]): void {
     process.on(sig, () => {
       const removed: string[] = [];
       for (const [tmp, output] of inFlight) {
-        try { unlinkSync(tmp); removed.push(tmp); } catch {
+        try { removeTemporary(tmp, output); removed.push(tmp); } catch {
           if (existsSync(output)) finished.push(output); // renamed into place just before the signal
         }
       }

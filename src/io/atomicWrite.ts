@@ -3,7 +3,7 @@
  * folder and is renamed into place only when complete. An existing file is
  * replaced only with `force`; a path that is also an input is refused.
  */
-import { closeSync, existsSync, fsyncSync, mkdirSync, openSync, renameSync, unlinkSync, writeSync, realpathSync } from 'node:fs';
+import { closeSync, existsSync, fsyncSync, lstatSync, mkdirSync, openSync, renameSync, rmSync, unlinkSync, writeSync, realpathSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { InputError } from '../core/errors.js';
 
@@ -16,6 +16,7 @@ export interface AtomicWriteOptions {
 }
 
 const pending = new Set<string>();
+const trackedOutputs = new Map<string, string>();
 const finished: string[] = [];
 
 /** A temporary file starts, becomes its output (`finish`) or is deleted after a failure (`abandon`). */
@@ -41,12 +42,48 @@ export function pendingTemporaryFiles(): string[] {
   return [...pending];
 }
 
-/** Deletes every temporary file still pending (called on SIGINT/SIGTERM). */
+/** Deletes every temporary file (or staging folder) still pending (called on SIGINT/SIGTERM). */
 export function removePendingTemporaryFiles(): void {
   for (const p of pending) {
-    try { unlinkSync(p); } catch { /* already gone */ }
+    try { removeTemporary(p, trackedOutputs.get(p)); } catch { /* already gone */ }
     pending.delete(p);
   }
+}
+
+/**
+ * Records a temporary made outside {@link writeFileAtomic} (a staging folder,
+ * see atomicFolder.ts) so that SIGINT/SIGTERM removes it: `start` when
+ * created, `finish` once renamed into place as `output`, `abandon` once removed.
+ */
+export function trackTemporary(kind: TemporaryFileEvent['kind'], temporary: string, output: string): void {
+  if (kind === 'start') { pending.add(temporary); trackedOutputs.set(temporary, output); }
+  else { pending.delete(temporary); trackedOutputs.delete(temporary); }
+  if (kind === 'finish') finished.push(output);
+  listener?.({ kind, temporary, output });
+}
+
+/**
+ * Removes a temporary file, or a staging folder `<x>.tmp` with everything in
+ * it; throws (like unlink) when it is gone already, i.e. it became its output.
+ * A staging folder is first renamed aside, so a concurrent rename into place
+ * either happened before (and this throws) or cannot happen. The previous
+ * output folder set aside as `<x>.old` (atomicFolder.ts) is put back when the
+ * output is missing, and deleted when the new output is in place.
+ */
+export function removeTemporary(tmp: string, output?: string): void {
+  const old = tmp.replace(/\.tmp$/, '.old');
+  const dropOld = () => { if (old !== tmp && output && existsSync(output)) try { rmSync(old, { recursive: true, force: true }); } catch { /* harmless leftover */ } };
+  let claimed: string;
+  try {
+    if (!lstatSync(tmp).isDirectory()) { unlinkSync(tmp); return; }
+    claimed = `${tmp}.removing`;
+    renameSync(tmp, claimed);
+  } catch (e) {
+    dropOld();
+    throw e;
+  }
+  if (output && !existsSync(output) && existsSync(old)) try { renameSync(old, output); } catch { /* the writer put it back */ }
+  rmSync(claimed, { recursive: true, force: true });
 }
 
 function samePath(a: string, b: string): boolean {

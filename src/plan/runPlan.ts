@@ -5,12 +5,15 @@
  * provenance.json (input SHA-256, the resolved plan, skyspan and Node
  * versions, seed, time, and the SHA-256 of every output beside it). Every
  * destination is checked before the first is written; an existing file is
- * replaced only with `force`. Expensive intermediates are cached (cache.ts)
+ * replaced only with `force`. The folder is written as a whole
+ * (io/atomicFolder.ts): a `force` rerun replaces the previous run's folder
+ * only once every new file is complete, so it always holds one run's outputs. Expensive intermediates are cached (cache.ts)
  * in `cacheDir`, by default `.skyspan-cache` beside the output folder.
  */
 import { createHash } from 'node:crypto';
 import { basename, dirname, join, resolve } from 'node:path';
-import { checkWritable, ensureOutputFolder, writeFileAtomic } from '../io/atomicWrite.js';
+import { writeFolderAtomic } from '../io/atomicFolder.js';
+import { previousOutputs } from './previousOutputs.js';
 import { sha256File } from '../io/hash.js';
 import { renderReport, type ReportFigure, type ReportTable } from '../render/report.js';
 import { renderComparison, summaryRows, type ComparisonReport } from '../compare/report.js';
@@ -138,7 +141,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
       assumptions: c.forecast.assumptions, notes: c.forecast.notes, warnings: c.forecast.warnings } : null,
     populations: c.populations ? { name: c.populations.name, catalogue: c.populations.catalogue, unresolvedMeasured: c.populations.unresolvedMeasured,
       neutrinoAll: c.populations.neutrinoAll, assumptions: c.populations.assumptions, notes: c.populations.notes, warnings: c.populations.warnings } : null,
-    notes: c.notes, cache: { dir: cache.stats.dir, hits: cache.stats.hits.length, misses: cache.stats.misses.length },
+    notes: c.notes, cache: { dir: cache.stats.dir, hits: cache.stats.hits.length, misses: cache.stats.misses.length, discarded: cache.stats.discarded.length },
   };
   outs.push({ name: 'results.json', data: toJson(results) });
 
@@ -158,10 +161,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
   const outputsList = outs.map((o) => ({ file: o.name, sha256: createHash('sha256').update(o.data).digest('hex') }));
   outs.push({ name: 'provenance.json', data: toJson({ ...provBase, outputs: outputsList }) });
 
-  ensureOutputFolder(outDir);
-  const wopts = { force: options.force, inputs: inputPaths };
-  for (const o of outs) checkWritable(join(outDir, o.name), wopts);
-  for (const o of outs) writeFileAtomic(join(outDir, o.name), o.data, wopts);
+  writeFolderAtomic(outDir, outs, { force: options.force, inputs: inputPaths, replaceable: previousOutputs(outDir) });
   return { outDir, files: outs.map((o) => join(outDir, o.name)), report: plan.outputs.report ? join(outDir, 'report.html') : null,
     results: join(outDir, 'results.json'), headline: h, cache: cache.stats, computation: c };
 }

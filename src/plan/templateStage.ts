@@ -45,20 +45,26 @@ export function templateFileList(paths: string[]): string[] {
   return listTemplateFiles(paths).filter((f) => paths.includes(f) || !/-survival\.(fits|fit|fts)(\.gz)?$/i.test(f));
 }
 
-/** Builds a spec through the cache. */
+/**
+ * Builds a spec through the cache: the built map is a `template` entry and,
+ * with absorption, its survival map a `survival` entry under the same
+ * parameters; a missing or discarded entry of either rebuilds both and
+ * stores the ones that were not found.
+ */
 export async function cachedBuild(spec: TemplateSpec, opts: { nside: number; energiesGeV?: number[]; absorption: boolean },
   cache: ArtefactCache): Promise<BuiltTemplate> {
-  const key = cache.key('build', { spec, ...opts });
+  const parts = { spec, ...opts };
+  const tKey = cache.key('template', parts), sKey = cache.key('survival', parts);
   const label = `template ${spec.name} at Nside ${opts.nside}${opts.absorption ? ' with absorption' : ''}`;
-  const hit = cache.get('build', key, label);
-  if (hit) {
-    const meta = hit.meta as { map: unknown; survival: unknown; planes: number };
-    const np = meta.planes;
-    return { map: entryToMap(meta.map, hit.arrays.slice(0, np)), survival: meta.survival ? entryToMap(meta.survival, hit.arrays.slice(np)) : null };
+  const sLabel = `survival of ${spec.name} at Nside ${opts.nside}`;
+  const tHit = cache.get('template', tKey, label);
+  const sHit = opts.absorption ? cache.get('survival', sKey, sLabel) : null;
+  if (tHit && (sHit || !opts.absorption)) {
+    return { map: entryToMap(tHit.meta, tHit.arrays), survival: sHit ? entryToMap(sHit.meta, sHit.arrays) : null };
   }
   const built = await buildTemplate(spec, { nside: opts.nside, energiesGeV: opts.energiesGeV, absorption: opts.absorption });
-  const a = mapToEntry(built.map), b = built.survival ? mapToEntry(built.survival) : null;
-  cache.put('build', key, label, { meta: { map: a.meta, survival: b?.meta ?? null, planes: a.arrays.length }, arrays: [...a.arrays, ...(b?.arrays ?? [])] });
+  if (!tHit) cache.put('template', tKey, label, mapToEntry(built.map));
+  if (opts.absorption && !sHit && built.survival) cache.put('survival', sKey, sLabel, mapToEntry(built.survival));
   return built;
 }
 

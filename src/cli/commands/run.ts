@@ -6,6 +6,7 @@
 import type { Command } from 'commander';
 import { UsageError } from '../../core/errors.js';
 import { runPlan } from '../../plan/runPlan.js';
+import { discardNote } from '../../plan/cache.js';
 import type { CliIo } from '../main.js';
 
 interface Options { out?: string; force?: boolean; cache: boolean; cacheDir?: string; json?: boolean; quiet?: boolean }
@@ -13,9 +14,11 @@ interface Options { out?: string; force?: boolean; cache: boolean; cacheDir?: st
 async function action(planPath: string, o: Options, io: CliIo): Promise<void> {
   if (!o.out) throw new UsageError('run needs an output folder: -o OUTDIR');
   const r = await runPlan(planPath, { outDir: o.out, force: o.force, cache: o.cache, cacheDir: o.cacheDir });
+  for (const f of r.cache.discarded) io.err(`${discardNote(f)}\n`);
+  for (const n of r.cache.notes) io.err(`${n}\n`);
   if (o.json) {
     io.out(JSON.stringify({ outDir: r.outDir, report: r.report, results: r.results, files: r.files, headline: r.headline,
-      cache: { dir: r.cache.dir, hits: r.cache.hits, misses: r.cache.misses } }, null, 2) + '\n');
+      cache: { dir: r.cache.dir, hits: r.cache.hits, misses: r.cache.misses, discarded: r.cache.discarded } }, null, 2) + '\n');
     return;
   }
   if (!o.quiet) {
@@ -32,7 +35,7 @@ export function register(program: Command, io: CliIo): void {
     .description('run a plan file: factors, conversion, comparison, pictures, tables, report and provenance in one folder')
     .argument('<plan>', 'plan file (YAML)')
     .option('-o, --out <dir>', 'output folder')
-    .option('--force', 'replace existing outputs')
+    .option('--force', 'replace the output folder of an earlier run, as a whole, once every new file is written')
     .option('--no-cache', 'compute every intermediate afresh and store none')
     .option('--cache-dir <dir>', 'cache folder (default: .skyspan-cache beside the output folder)')
     .option('--json', 'print the summary as JSON')
