@@ -105,7 +105,7 @@ export class ArtefactCache {
 
   private discard(p: string): void {
     try { unlinkSync(p); } catch { /* gone, or a folder: the rewrite replaces or reports it */ }
-    this.stats.discarded.push(p);
+    if (!this.stats.discarded.includes(p)) this.stats.discarded.push(p);
   }
 
   /** Stores an entry (no-op when the cache is off). A failed store is a note, not a failure of the run. */
@@ -117,7 +117,8 @@ export class ArtefactCache {
       writeFileAtomic(this.path(kind, key), encodeEntry(kind, key, entry), { force: true });
       this.stats.stored.push(label);
     } catch (e) {
-      this.stats.notes.push(`cache: could not store ${label}: ${(e as Error).message}`);
+      const note = `cache: could not store ${label}: ${(e as Error).message}`;
+      if (!this.stats.notes.includes(note)) this.stats.notes.push(note);
     }
   }
 }
