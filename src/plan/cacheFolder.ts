@@ -33,7 +33,7 @@ interface Item { path: string; kind: string | null; bytes: number; mtimeMs: numb
 function items(dir: string): Item[] | null {
   let names: string[];
   try {
-    if (!statSync(dir).isDirectory()) throw new InputError('is not a folder', { file: dir }, 'name the cache folder (see skyspan run --cache-dir)');
+    if (!statSync(dir).isDirectory()) throw new InputError('is not a folder', { file: dir }, 'name the cache folder, as given to skyspan run --cache-dir');
     names = readdirSync(dir);
   } catch (e) {
     if (e instanceof InputError) throw e;
