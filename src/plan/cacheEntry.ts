@@ -15,7 +15,7 @@
  * header names the kind and key asked for (an entry copied or renamed from
  * another key) and that its arrays end exactly at the end of the entry.
  * SHA-256 rather than a faster 64-bit hash: Node ships it (no dependency),
- * it already keys the entries, and it costs about a millisecond per MB, well
+ * it already keys the entries, and it costs 1 to 3 ms per MB, well
  * under what the entries take to compute (`npm run bench -- cache`).
  */
 import { createHash } from 'node:crypto';
