@@ -4,7 +4,8 @@
  * results; plan/outputs.ts turns them into files.
  */
 import { ComputeError, InputError } from '../core/errors.js';
-import { readSpectrumPoints, type SpectrumPoints } from '../physics/points.js';
+import type { SpectrumPoints } from '../physics/points.js';
+import { readGammaPoints } from '../physics/fluxPoints/read.js';
 import { computeFactors } from '../scaling/factors.js';
 import type { FactorResult } from '../scaling/ensembleFactors.js';
 import type { TemplateFactor } from '../compare/ensemble.js';
@@ -62,7 +63,7 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   const m = rp.measurement;
   const absorption = plan.methods.absorption === 'cmb';
   const notes: string[] = [];
-  const points = rp.gammaPointsFile ? readSpectrumPoints(rp.gammaPointsFile) : null;
+  const points = rp.gammaPointsFile ? readGammaPoints(rp.gammaPointsFile) : null;
   const e0GeV = plan.methods.referenceEnergyTeV !== undefined ? plan.methods.referenceEnergyTeV * 1e3
     : m.kind !== 'points' ? m.e0GeV : Math.sqrt(Math.min(...m.points.map((p) => p.energyGeV)) * Math.max(...m.points.map((p) => p.energyGeV)));
   let energiesNuGeV: number[] = [];

@@ -14,6 +14,7 @@ import { checkWritable, ensureOutputFolder, writeFileAtomic } from '../io/atomic
 import { sha256File } from '../io/hash.js';
 import { renderReport, type ReportFigure, type ReportTable } from '../render/report.js';
 import { renderComparison, summaryRows, type ComparisonReport } from '../compare/report.js';
+import { predictionFluxPointFiles } from '../compare/spectrumFluxPoints.js';
 import { buildProvenance } from '../scaling/provenance.js';
 import { renderFactorTables } from '../scaling/tableText.js';
 import { VERSION } from '../version.js';
@@ -84,6 +85,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
       provenance: { tool: `skyspan ${VERSION}`, plan: rp.file ?? null, created: date.toISOString() } };
     const fmts = plan.outputs.tables.filter((f): f is 'csv' | 'md' | 'json' => f !== 'tex');
     outs.push(...renderComparison(compReport, fmts.length ? fmts : ['json'], 'comparison').map((x) => ({ name: x.name, data: x.text })));
+    outs.push(...predictionFluxPointFiles(c.prediction));
   }
   const survCsv = (s: NonNullable<RunComputation['survival']>) => ['# mean survival probability (emission weighted) of gamma rays from region ' + s.region,
     `template,${s.energiesGeV.map((e) => `P_at_${e}_GeV`).join(',')}`, ...Object.entries(s.byTemplate).map(([t, v]) => `${t},${v.join(',')}`)].join('\n') + '\n';
