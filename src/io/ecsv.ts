@@ -13,7 +13,7 @@
  * InputError. The writer emits what the reader reads and astropy reads back
  * (test/physics/fluxPoints.test.ts checks both against astropy).
  */
-import { parse as parseYaml, stringify as stringifyYaml } from 'yaml';
+import { Document, parse as parseYaml, type YAMLMap, type YAMLSeq } from 'yaml';
 import { InputError } from '../core/errors.js';
 
 /** One column: numeric and bool columns as Float64Array (bool 1/0, missing NaN), string columns as text. */
@@ -168,7 +168,9 @@ export function formatEcsv(table: EcsvTable): string {
   const doc: Record<string, unknown> = { datatype };
   if (Object.keys(table.meta).length > 0) doc.meta = table.meta;
   doc.schema = 'astropy-2.0';
-  const yamlText = stringifyYaml(doc, { lineWidth: 0 }).trimEnd();
+  const yamlDoc = new Document(doc);
+  for (const item of (yamlDoc.get('datatype') as YAMLSeq).items) (item as YAMLMap).flow = true; // one line per column, as astropy writes
+  const yamlText = yamlDoc.toString({ lineWidth: 0 }).trimEnd();
   const out = ['# %ECSV 1.0', '# ---', ...yamlText.split('\n').map((l) => `# ${l}`)];
   out.push(table.columns.map((c) => formatField(c.name, 'string')).join(' '));
   const n = table.columns.length ? table.columns[0].values.length : 0;

@@ -24,6 +24,7 @@ import { comparisonSvg, forecastSvg, skyMapPng } from './figures.js';
 import { loadPlan } from './loadPlan.js';
 import { regionFiles } from './regionWeights.js';
 import { headline, reportContent, type Headline } from './reportContent.js';
+import { projectionResults, projectionTable } from './projectionReport.js';
 
 /** Options of {@link runPlan}. */
 export interface RunOptions {
@@ -70,6 +71,8 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
   for (const f of regionFiles(rp.regions)) inputs.push({ role: 'region input', ...f });
   if (rp.gammaPointsFile) inputs.push({ role: 'gamma-ray points', path: rp.gammaPointsFile, sha256: sha256File(rp.gammaPointsFile) });
   if (rp.measurementFile) inputs.push({ role: 'neutrino measurement', path: rp.measurementFile, sha256: sha256File(rp.measurementFile) });
+  if (rp.neutrinoTemplateFile) inputs.push({ role: 'neutrino template', path: rp.neutrinoTemplateFile, sha256: sha256File(rp.neutrinoTemplateFile) });
+  if (rp.acceptanceFile) inputs.push({ role: 'neutrino acceptance', path: rp.acceptanceFile, sha256: sha256File(rp.acceptanceFile) });
   for (const t of c.templates) inputs.push({ role: `template (${t.origin.kind})`, path: t.origin.path, sha256: t.origin.sha256 });
   const inputPaths = inputs.map((i) => i.path);
 
@@ -122,6 +125,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
     figures.push({ id: 'fig-forecast', svg, caption: `Gamma-ray intensity expected in '${plan.forecast!.footprint}' from the neutrino measurement.` });
   }
   const extraTables: ReportTable[] = [];
+  if (c.projection) extraTables.push(projectionTable(c.projection));
   if (c.populations) figures.push({ id: 'fig-populations', svg: c.populations.svg, caption: `Source counts of the population '${c.populations.name}' (not applied to the headline).` });
 
   const h = headline(rp, c);
@@ -136,6 +140,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
       methods: c.prediction.methods.map((m) => ({ id: m.id, label: m.label, atE0: m.atE0, atEnergies: m.atEnergies })),
       assumptions: c.prediction.assumptions, notes: c.prediction.notes, warnings: c.prediction.warnings, linearCheck: c.prediction.linearCheck } : null,
     comparison: c.reference, pointsComparison: c.pointsComparison,
+    templateProjection: c.projection ? projectionResults(c.projection) : null,
     forecast: c.forecast ? { energiesGammaGeV: c.forecast.energiesGammaGeV, components: c.forecast.components, methods: c.forecast.methods,
       assumptions: c.forecast.assumptions, notes: c.forecast.notes, warnings: c.forecast.warnings } : null,
     populations: c.populations ? { name: c.populations.name, catalogue: c.populations.catalogue, unresolvedMeasured: c.populations.unresolvedMeasured,

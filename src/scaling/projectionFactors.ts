@@ -43,7 +43,8 @@ export interface ProjectionFactor {
   blank: number;
 }
 
-function planeNearest(map: SkyMap, energyGeV: number | undefined): number {
+/** Index of the plane whose energy is nearest `energyGeV` in log (0 for a map without energy planes). */
+export function planeNearest(map: SkyMap, energyGeV: number | undefined): number {
   const e = map.energiesGeV;
   if (!e || e.length <= 1 || energyGeV === undefined) return 0;
   let best = 0;
