@@ -65,6 +65,11 @@ describe('flux points, skyspan alone', () => {
       const ft = fitsFluxTable(fits, 'x.fits');
       expect(ft.meta.SED_TYPE).toBe(opts.sedType ?? 'dnde');
     }
+    // rows with an energy and no band beside rows with a band (as CSV points allow) survive the round trip
+    const mixed = { ...p, eMinGeV: Float64Array.of(NaN, 2000, NaN, 20000), eMaxGeV: Float64Array.of(NaN, 5000, NaN, 50000) };
+    const m2 = parseFluxPointsEcsv(formatFluxPointsEcsv(mixed), 'm.ecsv');
+    expectSame(m2, mixed, 1e-14);
+    expect(Array.from(m2.eMinGeV!).map((v) => Number.isNaN(v))).toEqual([true, false, true, false]);
     expect(pointsFileKind('a.ECSV')).toBe('ecsv');
     expect(pointsFileKind('a.fits.gz')).toBe('fits');
     expect(pointsFileKind('a.csv')).toBe('csv');

@@ -97,11 +97,15 @@ export function pointsFromTable(t: FluxTable): SpectrumPoints {
   for (let i = 0; i < n; i++) {
     const at = (keyword: string) => ({ ...t.rowAt(i), keyword });
     const lo = eMin ? eMin.values[i] * fMin : NaN, hi = eMax ? eMax.values[i] * fMax : NaN;
+    const refGiven = eRef !== undefined && Number.isFinite(eRef.values[i]);
     if (out.eMinGeV) {
-      if (!(lo > 0 && hi > lo)) throw new InputError(`band edges ${lo} to ${hi} GeV: need 0 < e_min < e_max`, at('e_min'));
+      // a row with e_ref may leave its band edges out (NaN), as CSV points with an energy column do
+      if (!(refGiven && Number.isNaN(lo) && Number.isNaN(hi)) && !(lo > 0 && hi > lo)) {
+        throw new InputError(`band edges ${lo} to ${hi} GeV: need 0 < e_min < e_max`, at('e_min'));
+      }
       out.eMinGeV[i] = lo; out.eMaxGeV![i] = hi;
     }
-    const e = eRef && Number.isFinite(eRef.values[i]) ? eRef.values[i] * fRef : Math.sqrt(lo * hi);
+    const e = refGiven ? eRef!.values[i] * fRef : Math.sqrt(lo * hi);
     if (!(e > 0 && Number.isFinite(e))) throw new InputError(`energy ${e} GeV must be > 0`, at(eRef ? 'e_ref' : 'e_min'));
     const toI = sed === 'dnde' ? 1 : 1 / (e * e);
     const v = value ? value.values[i] : NaN;
