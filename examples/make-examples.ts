@@ -81,9 +81,9 @@ energiesTeV.forEach((e, i) => {
 });
 writeFileSync(join(here, 'northern-plane', 'gamma-points.csv'), pts.join('\n') + '\n');
 
-// The same invented points as flux-point tables (E^2 dN/dE in GeV cm^-2 s^-1 sr^-1, energies in TeV).
+// The same invented points as flux-point tables (E^2 dN/dE in GeV cm-2 s-1 sr-1, energies in TeV).
 const points = parseSpectrumPoints(pts.join('\n') + '\n', 'gamma-points.csv');
-const fpOptions = { sedType: 'e2dnde' as const, energyUnit: 'TeV', meta: { COMMENT: 'INVENTED demo points of a fictional array, not a measurement' } };
+const fpOptions = { sedType: 'e2dnde' as const, energyUnit: 'TeV', valueEnergyUnit: 'GeV', meta: { COMMENT: 'INVENTED demo points of a fictional array, not a measurement' } };
 writeFileSync(join(here, 'northern-plane', 'gamma-points.ecsv'), formatFluxPointsEcsv(points, fpOptions));
 writeFileSync(join(here, 'northern-plane', 'gamma-points.fits'), formatFluxPointsFits(points, { ...fpOptions, meta: { DEMO: true } }));
 

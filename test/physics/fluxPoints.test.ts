@@ -56,7 +56,7 @@ describe('unit strings of table files', () => {
 describe('flux points, skyspan alone', () => {
   it('ECSV and FITS round trips return the points (dnde in TeV and e2dnde in GeV)', () => {
     const p = invented();
-    for (const opts of [{}, { sedType: 'e2dnde' as const, energyUnit: 'GeV' }]) {
+    for (const opts of [{}, { sedType: 'e2dnde' as const, energyUnit: 'GeV' }, { sedType: 'e2dnde' as const, valueEnergyUnit: 'erg' }]) {
       const back = parseFluxPointsEcsv(formatFluxPointsEcsv(p, opts), 'x.ecsv');
       expectSame(back, p, 1e-14);
       expect(back.ulConfidence).toBe(0.95);

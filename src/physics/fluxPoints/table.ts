@@ -145,6 +145,8 @@ export interface FluxTableOptions {
   sedType?: SedType;
   /** Energy unit of the file, a plain unit name such as TeV (default TeV). */
   energyUnit?: string;
+  /** Energy unit inside the value's unit (e.g. GeV for GeV cm-2 s-1 sr-1; default energyUnit). */
+  valueEnergyUnit?: string;
   /** Extra metadata (strings, numbers, booleans), written after SED_TYPE and UL_CONF. */
   meta?: Record<string, string | number | boolean>;
 }
@@ -158,10 +160,13 @@ export interface FluxTableOptions {
 export function tableFromPoints(points: SpectrumPoints, options: FluxTableOptions = {}):
   { columns: { name: string; unit: string; values: Float64Array; bool?: boolean }[]; meta: Record<string, string | number | boolean> } {
   const sed = options.sedType ?? 'dnde';
-  const eu = options.energyUnit ?? 'TeV';
-  if (!/^[A-Za-z]+$/.test(eu)) throw new InputError(`energy unit "${eu}" must be a plain unit name such as GeV or TeV`, { keyPath: 'energyUnit' });
+  const eu = options.energyUnit ?? 'TeV', vu = options.valueEnergyUnit ?? eu;
+  for (const [u, key] of [[eu, 'energyUnit'], [vu, 'valueEnergyUnit']]) {
+    if (!/^[A-Za-z]+$/.test(u)) throw new InputError(`energy unit "${u}" must be a plain unit name such as GeV or TeV`, { keyPath: key });
+  }
   const fE = energyUnitFactor(eu, { keyPath: 'energyUnit' });
-  const vUnit = sed === 'dnde' ? `${eu}-1 cm-2 s-1 sr-1` : `${eu} cm-2 s-1 sr-1`;
+  energyUnitFactor(vu, { keyPath: 'valueEnergyUnit' });
+  const vUnit = sed === 'dnde' ? `${vu}-1 cm-2 s-1 sr-1` : `${vu} cm-2 s-1 sr-1`;
   const fV = intensityUnit(fileUnitToMathjs(vUnit)).factor;
   const n = points.energyGeV.length;
   const conv = (x: number, e: number) => (sed === 'dnde' ? x / fV : (x * e * e) / fV);
