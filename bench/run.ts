@@ -12,6 +12,7 @@ const suites: Record<string, () => Promise<unknown>> = {
   physics: async () => (await import('./physics.js')).benchPhysics(),
   peakMemory: async () => (await import('./peakMemory.js')).benchPeakMemory(),
   cache: async () => (await import('./cache.js')).benchCache(),
+  projection: async () => (await import('./projection.js')).benchProjection(),
 };
 
 const wanted = process.argv.slice(2);

@@ -2,7 +2,9 @@
 """Independent evaluation of pp emissivities with the Kelner, Aharonian &
 Bugayov 2006 (Phys. Rev. D 74, 034018) functions, by scipy's adaptive quad, for
 checking the quadrature in src/physics/hadronic/emissivity.ts. The functions
-are transcribed separately here (same source forms, from memory), so a typo in
+are transcribed separately here (same source forms: gamma rays eqs. 58-61,
+electrons eqs. 62-65, muon neutrinos from pions eqs. 66-69, cross-section
+eq. 79; the 2009 erratum not read), so a typo in
 one copy shows up as a mismatch.
 
 Input (stdin, JSON): [{"secondary": "gamma"|"nuMuFromPion"|"electronType", "E": GeV, "index": Gamma}, ...]

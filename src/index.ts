@@ -19,6 +19,7 @@ export * from './maps/interpolate.js';
 export * from './maps/reframe.js';
 export * from './io/mapFile.js';
 export * from './io/csv.js';
+export { parseEcsv, formatEcsv, type EcsvTable, type EcsvColumn } from './io/ecsv.js';
 export * from './io/hash.js';
 export { estimateMapBytes, availableMemoryBytes, assertFits, formatBytes, MEMORY_LIMIT_ENV, type MemoryLimit } from './core/memory.js';
 export * as fits from './io/fits/index.js';

@@ -41,7 +41,7 @@ export function parseFormats(text: string): TextFormat[] {
  * first, so that one refused output (it exists without force, or it is an
  * input) leaves none written. Returns the paths written, in order.
  */
-export function writeOutputs(files: readonly { path: string; text: string }[], opts: { force?: boolean; inputs: readonly string[] }): string[] {
+export function writeOutputs(files: readonly { path: string; text: string | Uint8Array }[], opts: { force?: boolean; inputs: readonly string[] }): string[] {
   const o = { force: opts.force, inputs: [...opts.inputs] };
   for (const f of files) checkWritable(f.path, o);
   for (const f of files) writeFileAtomic(f.path, f.text, o);

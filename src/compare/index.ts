@@ -15,3 +15,4 @@ export * from './tension.js';
 export * from './reverse.js';
 export * from './factorsFile.js';
 export * from './report.js';
+export * from './spectrumFluxPoints.js';

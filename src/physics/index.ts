@@ -20,3 +20,7 @@ export { breitWheelerRatio, breitWheelerPhi } from './absorption/breitWheeler.js
 export * from './absorption/radiationField.js';
 export * from './absorption/attenuationLength.js';
 export * from './absorption/deabsorb.js';
+export { parseFluxPointsEcsv, readFluxPointsEcsv, formatFluxPointsEcsv } from './fluxPoints/ecsv.js';
+export { readFluxPointsFits, formatFluxPointsFits } from './fluxPoints/fits.js';
+export { readGammaPoints, pointsFileKind } from './fluxPoints/read.js';
+export type { SedType, FluxTableOptions } from './fluxPoints/table.js';

@@ -39,6 +39,7 @@ export interface SpectrumPoints {
   eMaxGeV?: Float64Array;
   /** Where the points came from (file path). */
   source?: string;
+  ulConfidence?: number;
 }
 
 function parseFlag(text: string, file: string, row: number): number {

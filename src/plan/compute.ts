@@ -4,7 +4,8 @@
  * results; plan/outputs.ts turns them into files.
  */
 import { ComputeError, InputError } from '../core/errors.js';
-import { readSpectrumPoints, type SpectrumPoints } from '../physics/points.js';
+import type { SpectrumPoints } from '../physics/points.js';
+import { readGammaPoints } from '../physics/fluxPoints/read.js';
 import { computeFactors } from '../scaling/factors.js';
 import type { FactorResult } from '../scaling/ensembleFactors.js';
 import type { TemplateFactor } from '../compare/ensemble.js';
@@ -17,6 +18,7 @@ import type { ResolvedPlan } from './loadPlan.js';
 import { cachedRegions, isWholeSky, regionSurvival } from './regionWeights.js';
 import { loadRunTemplates, type RunTemplate } from './templateStage.js';
 import { forecastPerEnergy, predictPerEnergy } from './predictStage.js';
+import { projectOnNeutrinoTemplate, type TemplateProjectionResult } from './projectionStage.js';
 
 /** Survival of one region: per template, at each gamma-ray energy. */
 export interface SurvivalTable { region: string; exposureWeighted: boolean; energiesGeV: number[]; byTemplate: Record<string, number[]> }
@@ -40,6 +42,8 @@ export interface RunComputation {
   forecast: ReverseResult | null;
   forecastPerEnergy: boolean;
   populations: PopulationSectionResult | null;
+  /** The comparison on the neutrino template's own terms (plan neutrino.template), or null. */
+  projection: TemplateProjectionResult | null;
   absorptionStatement: string;
   notes: string[];
 }
@@ -62,7 +66,7 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   const m = rp.measurement;
   const absorption = plan.methods.absorption === 'cmb';
   const notes: string[] = [];
-  const points = rp.gammaPointsFile ? readSpectrumPoints(rp.gammaPointsFile) : null;
+  const points = rp.gammaPointsFile ? readGammaPoints(rp.gammaPointsFile) : null;
   const e0GeV = plan.methods.referenceEnergyTeV !== undefined ? plan.methods.referenceEnergyTeV * 1e3
     : m.kind !== 'points' ? m.e0GeV : Math.sqrt(Math.min(...m.points.map((p) => p.energyGeV)) * Math.max(...m.points.map((p) => p.energyGeV)));
   let energiesNuGeV: number[] = [];
@@ -132,6 +136,7 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   let factors: FactorResult | null = null, prediction: Prediction | null = null, perEnergy = false;
   let reference: ReferenceComparison | null = null, pointsComparison: PointsComparison | null = null, survival: SurvivalTable | null = null;
   let factorsAtE0: TemplateFactor[] = [];
+  let projection: TemplateProjectionResult | null = null;
   const mc = { samples: plan.monteCarlo.samples, seed: plan.monteCarlo.seed };
   const conv = { methods: plan.methods.conversion, channel: plan.methods.channel, flavourRatio: plan.methods.flavourRatio as [number, number, number] };
   if (points && plan.gamma) {
@@ -145,7 +150,10 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
     prediction = r.prediction; perEnergy = r.perEnergy;
     if (m.kind !== 'points') reference = compareAtReference(prediction, m);
     else pointsComparison = chiSquareOverPoints(prediction, m);
+    projection = projectOnNeutrinoTemplate({ rp, templates, factors, factorsAtE0, points, e0GeV,
+      base: { factorsFile: rp.file, ...conv, ...mc } });
   }
+  if (rp.neutrinoTemplateFile && !(points && plan.gamma)) notes.push('neutrino.template is used by the comparison of gamma-ray points only; this run has none, so it was not used');
   let forecastFactors: FactorResult | null = null, forecastSurvival: SurvivalTable | null = null, forecast: ReverseResult | null = null, fPer = false;
   if (plan.forecast) {
     forecastFactors = computeFactors({ ...regionsBase, templates: factorTemplates, measured: plan.forecast.footprint,
@@ -165,7 +173,7 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
     : `Pair absorption on the CMB: each template's emission-weighted mean survival probability in the measured region was computed from the template model at every gamma-ray energy used (${rp.shipped ? `shipped templates rebuilt from their specs at Nside ${plan.methods.absorptionNside}` : 'from the templates\' survival maps'}); ` +
       ((perEnergy || fPer) ? 'the prediction was made once per energy with the survival at that energy.' : 'the survival did not change between the energies used.');
   return { templates, points, e0GeV, energiesNuGeV, factors, prediction, perEnergy, reference, pointsComparison, survival, factorsAtE0,
-    forecastFactors, forecastSurvival, forecast, forecastPerEnergy: fPer, populations, absorptionStatement, notes };
+    forecastFactors, forecastSurvival, forecast, forecastPerEnergy: fPer, populations, projection, absorptionStatement, notes };
 }
 
 function uniqueNames(xs: string[]): string[] {

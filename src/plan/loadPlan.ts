@@ -28,6 +28,9 @@ export interface ResolvedPlan {
   measurement: NeutrinoMeasurement;
   measurementFile: string | undefined;
   gammaPointsFile: string | undefined;
+  /** The neutrino template and its acceptance map (absolute), when the plan names them. */
+  neutrinoTemplateFile?: string;
+  acceptanceFile?: string;
   templateFiles: string[];
   buildSpecs: string[];
   /** Whether the shipped ensemble is used. */
@@ -113,11 +116,17 @@ export function resolvePlan(plan: PlanDocument, file: string | undefined, dir: s
   if (measurement.kind === 'points' && plan.gamma && ref === undefined) {
     throw new InputError('found a points measurement and no reference energy, expected methods.referenceEnergyTeV', { file, keyPath: 'methods.referenceEnergyTeV' });
   }
+  if (plan.neutrino.acceptance !== undefined && plan.neutrino.template === undefined) {
+    throw new InputError('found an acceptance map and no neutrino template, expected neutrino.template too', { file, keyPath: 'neutrino.acceptance' },
+      'the acceptance weighs the projection onto the neutrino template');
+  }
   const t = plan.templates;
   const shipped = t.shipped ?? (!t.files && !t.build);
   return {
     file, dir, plan, regions, regionsFile, measurement, measurementFile,
     gammaPointsFile: plan.gamma ? abs(dir, plan.gamma.points) : undefined,
+    ...(plan.neutrino.template ? { neutrinoTemplateFile: abs(dir, plan.neutrino.template) } : {}),
+    ...(plan.neutrino.acceptance ? { acceptanceFile: abs(dir, plan.neutrino.acceptance) } : {}),
     templateFiles: (t.files ?? []).map((p) => abs(dir, p)),
     buildSpecs: (t.build ?? []).map((p) => abs(dir, p)),
     shipped,

@@ -6,6 +6,7 @@
 import type { ReportContent, ReportFigure, ReportTable } from '../render/report.js';
 import type { RunComputation } from './compute.js';
 import type { ResolvedPlan } from './loadPlan.js';
+import { projectionSentence } from './projectionReport.js';
 
 /** The headline numbers as shown (3 significant digits) and as computed. */
 export interface Headline {
@@ -41,6 +42,7 @@ export function headline(rp: ResolvedPlan, c: RunComputation): Headline {
     h.tensionSigma = x.sigma;
     parts.push(`The neutrino points give chi^2 = ${h.display.chi2} for ${x.dof} points against the hadronic prediction, a tension of ${h.display.tension} sigma.`);
   }
+  if (c.projection && projectionSentence(c.projection)) parts.push(projectionSentence(c.projection));
   if (c.forecast) {
     const comb = c.forecast.components.find((k) => k.name === 'combined')!;
     const E = c.forecast.energiesGammaGeV;

@@ -17,6 +17,7 @@ import { previousOutputs } from './previousOutputs.js';
 import { sha256File } from '../io/hash.js';
 import { renderReport, type ReportFigure, type ReportTable } from '../render/report.js';
 import { renderComparison, summaryRows, type ComparisonReport } from '../compare/report.js';
+import { predictionFluxPointFiles } from '../compare/spectrumFluxPoints.js';
 import { buildProvenance } from '../scaling/provenance.js';
 import { renderFactorTables } from '../scaling/tableText.js';
 import { VERSION } from '../version.js';
@@ -26,6 +27,7 @@ import { comparisonSvg, forecastSvg, skyMapPng } from './figures.js';
 import { loadPlan } from './loadPlan.js';
 import { regionFiles } from './regionWeights.js';
 import { headline, reportContent, type Headline } from './reportContent.js';
+import { projectionResults, projectionTable } from './projectionReport.js';
 
 /** Options of {@link runPlan}. */
 export interface RunOptions {
@@ -72,6 +74,8 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
   for (const f of regionFiles(rp.regions)) inputs.push({ role: 'region input', ...f });
   if (rp.gammaPointsFile) inputs.push({ role: 'gamma-ray points', path: rp.gammaPointsFile, sha256: sha256File(rp.gammaPointsFile) });
   if (rp.measurementFile) inputs.push({ role: 'neutrino measurement', path: rp.measurementFile, sha256: sha256File(rp.measurementFile) });
+  if (rp.neutrinoTemplateFile) inputs.push({ role: 'neutrino template', path: rp.neutrinoTemplateFile, sha256: sha256File(rp.neutrinoTemplateFile) });
+  if (rp.acceptanceFile) inputs.push({ role: 'neutrino acceptance', path: rp.acceptanceFile, sha256: sha256File(rp.acceptanceFile) });
   for (const t of c.templates) inputs.push({ role: `template (${t.origin.kind})`, path: t.origin.path, sha256: t.origin.sha256 });
   const inputPaths = inputs.map((i) => i.path);
 
@@ -87,6 +91,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
       provenance: { tool: `skyspan ${VERSION}`, plan: rp.file ?? null, created: date.toISOString() } };
     const fmts = plan.outputs.tables.filter((f): f is 'csv' | 'md' | 'json' => f !== 'tex');
     outs.push(...renderComparison(compReport, fmts.length ? fmts : ['json'], 'comparison').map((x) => ({ name: x.name, data: x.text })));
+    outs.push(...predictionFluxPointFiles(c.prediction));
   }
   const survCsv = (s: NonNullable<RunComputation['survival']>) => ['# mean survival probability (emission weighted) of gamma rays from region ' + s.region,
     `template,${s.energiesGeV.map((e) => `P_at_${e}_GeV`).join(',')}`, ...Object.entries(s.byTemplate).map(([t, v]) => `${t},${v.join(',')}`)].join('\n') + '\n';
@@ -123,6 +128,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
     figures.push({ id: 'fig-forecast', svg, caption: `Gamma-ray intensity expected in '${plan.forecast!.footprint}' from the neutrino measurement.` });
   }
   const extraTables: ReportTable[] = [];
+  if (c.projection) extraTables.push(projectionTable(c.projection));
   if (c.populations) figures.push({ id: 'fig-populations', svg: c.populations.svg, caption: `Source counts of the population '${c.populations.name}' (not applied to the headline).` });
 
   const h = headline(rp, c);
@@ -137,6 +143,7 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
       methods: c.prediction.methods.map((m) => ({ id: m.id, label: m.label, atE0: m.atE0, atEnergies: m.atEnergies })),
       assumptions: c.prediction.assumptions, notes: c.prediction.notes, warnings: c.prediction.warnings, linearCheck: c.prediction.linearCheck } : null,
     comparison: c.reference, pointsComparison: c.pointsComparison,
+    templateProjection: c.projection ? projectionResults(c.projection) : null,
     forecast: c.forecast ? { energiesGammaGeV: c.forecast.energiesGammaGeV, components: c.forecast.components, methods: c.forecast.methods,
       assumptions: c.forecast.assumptions, notes: c.forecast.notes, warnings: c.forecast.warnings } : null,
     populations: c.populations ? { name: c.populations.name, catalogue: c.populations.catalogue, unresolvedMeasured: c.populations.unresolvedMeasured,

@@ -39,6 +39,10 @@ const gamma = z.strictObject({
 const neutrino = z.strictObject({
   measurement: z.union([name, z.record(z.string(), z.unknown())]),
   region: name,
+  /** The neutrino analysis's spatial template (HEALPix FITS); the measured normalisation multiplies it as stored. */
+  template: name.optional(),
+  /** The neutrino analysis's acceptance (exposure) map (HEALPix FITS); default uniform. Needs template. */
+  acceptance: name.optional(),
 });
 
 const methods = z.strictObject({

@@ -14,3 +14,5 @@ export { buildProvenance, hashInputs, provenanceLines, type FactorProvenance, ty
 export { renderFactorTables, TABLE_FORMATS, type TableFormat } from './tableText.js';
 export { writeFactorTables } from './writeTables.js';
 export { listTemplateFiles, readTemplateFiles, type TemplateFromFile } from './templateFiles.js';
+export { projectNormalisation, projectionSums, type ProjectionSums } from './templateProjection.js';
+export { projectionFactors, type ProjectionFactor, type ProjectionTemplate } from './projectionFactors.js';

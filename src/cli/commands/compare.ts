@@ -10,12 +10,13 @@ import type { Command } from 'commander';
 import { join } from 'node:path';
 import { UsageError } from '../../core/errors.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
-import { readSpectrumPoints } from '../../physics/points.js';
+import { readGammaPoints } from '../../physics/fluxPoints/read.js';
 import { energyToGeV } from '../../physics/units.js';
 import { readFactors } from '../../compare/factorsFile.js';
 import { readMeasurement } from '../../compare/measurement.js';
 import { predictNeutrinos } from '../../compare/predict.js';
 import { renderComparison, type ComparisonReport } from '../../compare/report.js';
+import { predictionFluxPointFiles } from '../../compare/spectrumFluxPoints.js';
 import { chiSquareOverPoints, compareAtReference } from '../../compare/tension.js';
 import { VERSION } from '../../version.js';
 import type { CliIo } from '../main.js';
@@ -32,7 +33,7 @@ function action(o: Options, io: CliIo): void {
   const formats = parseFormats(o.format);
   if (o.channel !== 'pp' && o.channel !== 'pgamma') throw new UsageError(`--channel is '${o.channel}', expected pp or pgamma`);
   const samples = parseInteger(o.samples, '--samples'), seed = parseInteger(o.seed, '--seed');
-  const points = readSpectrumPoints(o.gamma);
+  const points = readGammaPoints(o.gamma);
   const measurement = o.neutrino ? readMeasurement(o.neutrino) : undefined;
   let e0GeV: number;
   if (o.e0 !== undefined) {
@@ -66,7 +67,8 @@ function action(o: Options, io: CliIo): void {
   };
   const files = renderComparison(report, formats);
   const written = o.out
-    ? writeOutputs(files.map((f) => ({ path: join(o.out!, f.name), text: f.text })),
+    ? writeOutputs([...files.map((f) => ({ path: join(o.out!, f.name), text: f.text as string | Uint8Array })),
+      ...predictionFluxPointFiles(prediction).map((f) => ({ path: join(o.out!, f.name), text: f.data }))],
       { force: o.force, inputs: [o.gamma, o.factors, ...(o.neutrino ? [o.neutrino] : [])] })
     : [];
   for (const w of prediction.warnings) io.err(`skyspan: warning: ${w}\n`);
@@ -94,7 +96,7 @@ function action(o: Options, io: CliIo): void {
 export function register(program: Command, io: CliIo): void {
   program.command('compare')
     .description('predict the neutrino intensity from gamma-ray points and extrapolation factors, and weigh it against a neutrino measurement')
-    .requiredOption('--gamma <points.csv>', 'gamma-ray points measured in region A (spectrum points CSV)')
+    .requiredOption('--gamma <points.csv>', 'gamma-ray points measured in region A (spectrum points CSV, or flux points .ecsv / .fits)')
     .requiredOption('--factors <factors.json>', 'extrapolation factors A -> neutrino region: the factors command\'s JSON, or { "templates": [{ "name", "kI", "survivalMean"?, "weight"? }] }')
     .option('--neutrino <measurement.yaml>', 'neutrino measurement (kind normalisation, points or band)')
     .option('--target <region>', 'target region to take from a factors table with several')
@@ -105,7 +107,7 @@ export function register(program: Command, io: CliIo): void {
     .option('--flavour-ratio <e:mu:tau>', 'flavour ratio at Earth', '1:1:1')
     .option('--samples <n>', 'Monte Carlo samples', '20000')
     .option('--seed <n>', 'Monte Carlo seed', '1')
-    .option('-o, --out <dir>', 'write comparison.csv/.md/.json, comparison-spectrum.csv and comparison-plot.json into this folder')
+    .option('-o, --out <dir>', 'write comparison.csv/.md/.json, comparison-spectrum.csv/.ecsv/.fits and comparison-plot.json into this folder')
     .option('--format <list>', 'table formats: csv,md,json', 'csv,md,json')
     .option('--force', 'replace existing outputs')
     .option('--json', 'print the JSON result on stdout')

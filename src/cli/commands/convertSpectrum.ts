@@ -8,7 +8,8 @@ import type { Command } from 'commander';
 import { UsageError } from '../../core/errors.js';
 import { convertSpectrum, type ConversionResult } from '../../physics/hadronic/convert.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
-import { readSpectrumPoints, type SpectrumPoints } from '../../physics/points.js';
+import type { SpectrumPoints } from '../../physics/points.js';
+import { readGammaPoints } from '../../physics/fluxPoints/read.js';
 import { energyFromGeV, energyUnitFactor, intensityFromInternal, intensityUnit } from '../../physics/units.js';
 import { pointsFromIntensity, type SpectrumPlotData } from '../../render/spectrumData.js';
 import type { CliIo } from '../main.js';
@@ -66,7 +67,7 @@ function action(file: string, o: Options, io: CliIo): void {
   if (o.channel !== 'pp' && o.channel !== 'pgamma') throw new UsageError(`--channel is '${o.channel}', expected pp or pgamma`);
   intensityUnit(o.unit, { keyPath: '--unit' });
   energyUnitFactor(o.energyUnit, { keyPath: '--energy-unit' });
-  const points = readSpectrumPoints(file);
+  const points = readGammaPoints(file);
   const r = convertSpectrum(points, {
     direction: o.to === 'neutrino' ? 'gammaToNeutrino' : 'neutrinoToGamma', method: o.method === 'kab' ? 'kab2006' : 'kpiRule',
     channel: o.channel, flavourRatio: parseFlavourRatio(o.flavourRatio), cutoff: o.cutoff,
@@ -101,7 +102,7 @@ function action(file: string, o: Options, io: CliIo): void {
 export function register(program: Command, io: CliIo): void {
   program.command('convert-spectrum')
     .description('convert hadronic gamma-ray points to a neutrino spectrum (or back) by the KAB 2006 functions or the K_pi rule')
-    .argument('<points>', 'spectrum points CSV (columns energy|e_min,e_max, value, err|err_low,err_high, ul; units in "# energy_unit:" and "# value_unit:" lines)')
+    .argument('<points>', 'spectrum points CSV (columns energy|e_min,e_max, value, err|err_low,err_high, ul; units in "# energy_unit:" and "# value_unit:" lines), or flux points .ecsv / .fits')
     .option('--to <messenger>', 'neutrino or gamma', 'neutrino')
     .option('--method <method>', 'kab (proton-spectrum fit, Kelner et al. 2006) or rule (K_pi, Ahlers & Halzen 2018)', 'kab')
     .option('--channel <channel>', 'pp or pgamma (pgamma only with --method rule)', 'pp')

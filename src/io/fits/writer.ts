@@ -17,6 +17,8 @@ export interface ColumnSpec {
   readonly repeat: number;
   readonly unit?: string;
   readonly values: ArrayLike<number>;
+  /** Write as a logical column (TFORM L, section 7.3.3): 1 as 'T', 0 as 'F', NaN as undefined (0); type must be uint8. */
+  readonly logical?: boolean;
 }
 
 const TFORM_CODE: Record<ElementType, string> = { uint8: 'B', int16: 'I', int32: 'J', int64: 'K', float32: 'E', float64: 'D' };
@@ -67,13 +69,13 @@ export function bintableHdu(columns: ColumnSpec[], extra: CardSpec[] = []): Uint
   ];
   columns.forEach((c, i) => {
     cards.push([`TTYPE${i + 1}`, c.name, 'column name']);
-    cards.push([`TFORM${i + 1}`, `${c.repeat}${TFORM_CODE[c.type]}`, 'column format']);
+    cards.push([`TFORM${i + 1}`, `${c.repeat}${c.logical ? 'L' : TFORM_CODE[c.type]}`, 'column format']);
     if (c.unit) cards.push([`TUNIT${i + 1}`, c.unit, 'column unit']);
   });
   const head = headerBytes([...cards, ...extra]);
   const dataBytes = rowBytes * rows;
   const data = new Uint8Array(Math.ceil(dataBytes / BLOCK) * BLOCK);
-  if (columns.length === 1) {
+  if (columns.length === 1 && !columns[0].logical) {
     encodeContiguous(columns[0].values, columns[0].type, data, 0);
   } else {
     const dv = new DataView(data.buffer);
@@ -83,7 +85,8 @@ export function bintableHdu(columns: ColumnSpec[], extra: CardSpec[] = []): Uint
       const v = c.values;
       for (let r = 0, k = 0; r < rows; r++) {
         let p = r * rowBytes + off;
-        for (let j = 0; j < c.repeat; j++, p += size, k++) writeOne(dv, p, c.type, v[k]);
+        if (c.logical) for (let j = 0; j < c.repeat; j++, p++, k++) dv.setUint8(p, v[k] === 1 ? 84 : v[k] === 0 ? 70 : 0);
+        else for (let j = 0; j < c.repeat; j++, p += size, k++) writeOne(dv, p, c.type, v[k]);
       }
       off += widths[i];
     });

