@@ -3,6 +3,8 @@
  * the assumptions in plain words, the factor, survival and comparison tables,
  * the figures and the provenance. Rendered by render/report.ts.
  */
+import { channelWords, defaultMethods } from '../physics/hadronic/channels.js';
+import { METHOD_SPREAD_NOTE } from '../compare/conversion.js';
 import type { ReportContent, ReportFigure, ReportTable } from '../render/report.js';
 import type { RunComputation } from './compute.js';
 import type { ResolvedPlan } from './loadPlan.js';
@@ -83,10 +85,10 @@ export function reportContent(rp: ResolvedPlan, c: RunComputation, h: Headline, 
   if (h.display.forecast) keyFigures.push({ id: 'kf-forecast', label: `expected E^2 I at ${Number((h.forecastEnergyGeV! / 1e3).toPrecision(4))} TeV`, value: h.display.forecast });
   const assumptions = [
     'The template shape holds in the unseen sky: outside the measured region the diffuse emission is assumed to look like each template; only the shape carries the measurement to the target.',
-    'The emission is hadronic: all of the measured gamma rays come from pion decays in proton-proton collisions; no leptonic or unresolved-source part is subtracted.',
+    `The emission is hadronic: all of the measured gamma rays come from pion decays in ${channelWords(rp.plan.methods.channel)}; no leptonic or unresolved-source part is subtracted.`,
     `Neutrino flavour ratio at Earth ${rp.plan.methods.flavourRatio.join(':')} (e:mu:tau), neutrinos and antineutrinos together.`,
     c.absorptionStatement,
-    `Conversion: ${rp.plan.methods.conversion.map((m) => (m === 'kab' ? 'proton-spectrum fit with the Kelner, Aharonian & Bugayov (2006) yields' : 'the K_pi rule of Ahlers & Halzen (2018)')).join(' and ')}; channel ${rp.plan.methods.channel}.`,
+    `Conversion: ${(rp.plan.methods.conversion ?? defaultMethods(rp.plan.methods.channel)).map((m) => (m === 'kab' ? 'proton-spectrum fit with the Kelner, Aharonian & Bugayov (2006) yields' : 'the K_pi rule of Ahlers & Halzen (2018)')).join(' and ')}; channel ${rp.plan.methods.channel}${(rp.plan.methods.conversion ?? defaultMethods(rp.plan.methods.channel)).includes('kab') ? `. ${METHOD_SPREAD_NOTE}` : ''}.`,
     `Uncertainties: ${rp.plan.monteCarlo.samples} Monte Carlo samples, seed ${rp.plan.monteCarlo.seed}; the template ensemble's spread is read as a model uncertainty.`,
   ];
   const tables: ReportTable[] = [];

@@ -64,6 +64,6 @@ describe('convertSpectrum', () => {
       expect(back.value[i] / pts.value[i]).toBeCloseTo(1, 12);
       expect(back.energyGeV[i]).toBeCloseTo(E[i], 9);
     }
-    expect(() => convertSpectrum(pts, { method: 'kab2006', channel: 'pgamma' })).toThrow(/pp collisions only/);
+    expect(() => convertSpectrum(pts, { method: 'kab2006', channel: 'pgamma' })).toThrow(/applies to pp only, not pgamma/);
   });
 });
