@@ -115,6 +115,18 @@ export function tensionFromLikelihood(sr: SignedRoot, predicted: ArrayLike<numbe
     pValueStdError: 2 * se, draws: n, decidingDraws: n, definition: LIKELIHOOD_DEFINITION };
 }
 
+/**
+ * One phrase for a tension's p-value and its Monte Carlo uncertainty, e.g.
+ * "two-sided p = 0.0239 +- 0.0011 (binomial), decided by 239 of 20000 draws".
+ */
+export function describePValue(t: Tension): string {
+  const f = (x: number) => x.toPrecision(3);
+  const kind = t.definition === TENSION_DEFINITION ? 'binomial' : 'standard error of the mean over the draws';
+  const decided = t.decidingDraws === t.draws ? `all ${t.draws} draws enter` : `decided by ${t.decidingDraws} of ${t.draws} draws`;
+  const bound = t.pValueUpper95 !== undefined ? `; few draws decided it: p < ${f(t.pValueUpper95)} and tension > ${t.sigmaLower95!.toFixed(2)} sigma at 95 % confidence` : '';
+  return `${t.sided}-sided p = ${t.lowerBound ? `< ${f(2 / t.draws)}` : `${f(t.pValue)} +- ${f(t.pValueStdError)} (${kind})`}, ${decided}${bound}`;
+}
+
 /** Fraction of the all-flavour intensity in the measurement's flavour. */
 export function flavourFactor(p: Prediction, flavour: Flavour): number {
   return flavour === 'all' ? 1 : p.flavourFraction[flavour];

@@ -6,6 +6,8 @@
 import { channelWords, defaultMethods } from '../physics/hadronic/channels.js';
 import { METHOD_SPREAD_NOTE } from '../compare/conversion.js';
 import type { ReportContent, ReportFigure, ReportTable } from '../render/report.js';
+import { describePValue } from '../compare/tension.js';
+import { SUMMARY_DEFINITIONS } from '../compare/report.js';
 import type { RunComputation } from './compute.js';
 import type { ResolvedPlan } from './loadPlan.js';
 
@@ -36,7 +38,8 @@ export function headline(rp: ResolvedPlan, c: RunComputation): Headline {
     h.display = { ratio: p3(x.ratio.median), ratioLow: p3(x.ratio.p16), ratioHigh: p3(x.ratio.p84), tension: x.tension.sigma.toFixed(2),
       predicted: p3(x.predicted.median), measured: p3(x.measured.median) };
     parts.push(`At ${eTeV} the measured ${flav} neutrino intensity in '${rp.plan.neutrino.region}' is ${h.display.ratio} times the hadronic prediction from the gamma rays` +
-      ` (68 % interval ${h.display.ratioLow} to ${h.display.ratioHigh}), a tension of ${x.tension.lowerBound ? 'at least ' : ''}${h.display.tension} sigma with the measurement ${x.tension.direction} the prediction.`);
+      ` (68 % interval ${h.display.ratioLow} to ${h.display.ratioHigh}), a tension of ${x.tension.lowerBound ? 'at least ' : ''}${h.display.tension} sigma with the measurement ${x.tension.direction} the prediction` +
+      ` (${describePValue(x.tension)}).`);
   } else if (c.pointsComparison) {
     const x = c.pointsComparison;
     h.display = { chi2: p3(x.chi2), tension: x.sigma.toFixed(2) };
@@ -95,7 +98,7 @@ export function reportContent(rp: ResolvedPlan, c: RunComputation, h: Headline, 
   if (comparisonRows.length) {
     const cols = Object.keys(comparisonRows[0]);
     tables.push({ id: 'comparison', caption: `Prediction and comparison at ${Number((c.e0GeV / 1e3).toPrecision(4))} TeV (intensities in GeV^-1 cm^-2 s^-1 sr^-1)`,
-      columns: cols, rows: comparisonRows.map((r) => cols.map((k) => (r[k] === '' ? null : r[k]))) });
+      columns: cols, rows: comparisonRows.map((r) => cols.map((k) => (r[k] === '' ? null : r[k]))), note: SUMMARY_DEFINITIONS.join('. ') + '.' });
   }
   tables.push(factorTable(c, rp));
   if (c.survival) tables.push(survivalTable(c.survival, 'survival'));
