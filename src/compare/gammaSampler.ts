@@ -90,7 +90,7 @@ function pointsSampler(p: SpectrumPoints): GammaSampler {
   const notes = ['gamma-ray points drawn independently from two-piece log-normals matched to each point (median = value, 15.87/84.13 % points = value - errLow / value + errHigh); read between points by log-log interpolation; no extrapolation',
     ...w.notes];
   const nUl = p.value.length - k;
-  if (nUl > 0) notes.push(`${nUl} gamma-ray upper limit(s) not used`);
+  if (nUl > 0) notes.push(`${nUl} gamma-ray upper limit(s) not drawn; they enter the KAB proton fit as one-sided constraints`);
   return {
     rangeGeV: [e[0], e[k - 1]], notes, source: p.source,
     central(energies) {

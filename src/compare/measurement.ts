@@ -122,7 +122,7 @@ export function parseMeasurement(doc: unknown, file?: string): NeutrinoMeasureme
     return { ...base, kind: 'points', points };
   }
   const e0 = d.e0 * ef;
-  const { norm, likelihood } = normAndLikelihood(d, e0, (v, k) => toI(v, e0, k), file);
+  const { norm, likelihood } = normAndLikelihood(d, (v, k) => toI(v, e0, k), file);
   if (d.kind === 'normalisation') return { ...base, kind: 'normalisation', e0GeV: e0, norm, index: d.index, likelihood };
   return { ...base, kind: 'band', e0GeV: e0, norm, indexRange: [d.indexRange[0], d.indexRange[1]], energyRangeGeV: base.energyRangeGeV!, likelihood };
 }
@@ -131,7 +131,7 @@ type NormDoc = { norm?: number; err?: number; errLow?: number; errHigh?: number;
   profile?: { norm: number[]; deltaTs?: number[]; ts?: number[] } };
 
 /** The quoted value and the likelihood of a normalisation or band (see the module comment). */
-function normAndLikelihood(d: NormDoc, e0: number, toI: (v: number, keyPath: string) => number, file?: string): { norm: QuotedValue; likelihood?: NormLikelihood } {
+function normAndLikelihood(d: NormDoc, toI: (v: number, keyPath: string) => number, file?: string): { norm: QuotedValue; likelihood?: NormLikelihood } {
   const given = [d.norm !== undefined, d.profile !== undefined, d.upperLimit !== undefined].filter(Boolean).length;
   if (given === 0) throw new InputError('no normalisation', { file, keyPath: 'norm' }, 'give norm with errors, a profile, or an upperLimit');
   if (d.upperLimit !== undefined && given > 1) throw new InputError('upperLimit given together with norm or profile', { file, keyPath: 'upperLimit' }, 'give one of them');
