@@ -60,7 +60,7 @@ export function logErrorWidths(v: number, eLow: number, eHigh: number): [number,
 export function toLogPoints(points: SpectrumPoints, upperLimits: UpperLimitMode = 'penalty', upperLimitZ?: number): LogPoints {
   if (upperLimits === 'oneSided' && !(upperLimitZ! > 0)) throw new RangeError(`toLogPoints: 'oneSided' needs z_c > 0, got ${upperLimitZ}`);
   const idx: number[] = [];
-  for (let i = 0; i < points.value.length; i++) if (!points.upperLimit[i] || upperLimits === 'penalty') idx.push(i);
+  for (let i = 0; i < points.value.length; i++) if (!points.upperLimit[i] || upperLimits !== 'ignore') idx.push(i);
   const n = idx.length;
   const lp: LogPoints = { n, logE: new Float64Array(n), logV: new Float64Array(n), sLow: new Float64Array(n),
     sHigh: new Float64Array(n), upper: new Uint8Array(n), measured: 0, ulMode: upperLimits,

@@ -52,6 +52,9 @@ describe('energy-dependent survival', () => {
     const b = predictNeutrinos({ gamma: { kind: 'points', points: intrinsic }, factors: [{ template: 't', kI: 1 }], e0GeV: 5e4, methods: ['kab'], samples: 200, seed: 1 });
     expect(rel(a.methods[0].atE0, b.methods[0].atE0)).toBeLessThan(1e-9);
     expect(a.notes.join(' ')).toMatch(/1 upper limit\(s\) as one-sided constraints at 95\.0 % confidence \(default/);
+    const c = predictNeutrinos({ gamma: { kind: 'points', points: { ...points(0.1, true), ulConfidence: 0.9 } }, factors: f, e0GeV: 5e4, methods: ['kab'], samples: 200, seed: 1 });
+    expect(c.notes.join(' ')).toMatch(/at 90\.0 % confidence:/);
+    expect(c.methods[0].atE0).not.toBe(a.methods[0].atE0); // the level changes the fit
   });
 
   it('between tabulated energies log-log, beyond them an error naming the template and the range', () => {
