@@ -102,6 +102,7 @@ export function expectedGamma(input: ReverseInput): ReverseResult {
   if (!nu.central.some(Number.isFinite)) throw new ComputeError('no gamma-ray energy has half its value inside the neutrino measurement\'s energy range');
   const notes: string[] = [], warnings: string[] = [];
   if (!m.energyRangeGeV && m.kind !== 'points') notes.push('no energyRange in the measurement: its power law is used from E0/10 to 10 E0');
+  if (m.kind !== 'points' && m.likelihood?.kind === 'upperLimit') notes.push('the measurement is an upper limit: the forecast is the gamma-ray counterpart of the limit itself (an upper forecast, without spread from the measurement)');
   const at = ensembleAt(ens, eg);
   const channel = input.channel ?? 'pp';
   const wantedMethods = input.methods ?? defaultMethods(channel);
