@@ -35,6 +35,7 @@ import type { NeutrinoMeasurement, Flavour } from './measurement.js';
 import { normalCdf, normalQuantile, sigmaFromTwoSidedP } from './normal.js';
 import { muAtSignedRoot, signedRoot, signedRootAt, type SignedRoot } from './profile.js';
 import type { Prediction } from './predict.js';
+import { quantileSorted } from '../scaling/quantiles.js';
 import { Random } from './random.js';
 import { summariseSamples, type SampleSummary } from './summary.js';
 
@@ -102,7 +103,7 @@ export function tensionFromLikelihood(sr: SignedRoot, predicted: ArrayLike<numbe
   for (let i = 0; i < n; i++) { const h = normalCdf(signedRootAt(sr, predicted[i])); s += h; s2 += h * h; }
   const F = s / n, se = Math.sqrt(Math.max(0, (s2 / n - F * F) / Math.max(1, n - 1)));
   const sorted = Float64Array.from(predicted).sort();
-  const med = sorted[Math.floor(n / 2)], half = 0.5 * (sorted[Math.floor(0.8413 * n)] - sorted[Math.floor(0.1587 * n)]);
+  const med = quantileSorted(sorted, 0.5), half = 0.5 * (quantileSorted(sorted, 0.8413447460685429) - quantileSorted(sorted, 0.15865525393145707));
   const sideSigma = med > sr.best ? (sr.kind === 'upperLimit' ? sr.high : sr.high - sr.best) : sr.best - sr.low;
   const gaussianSigma = Math.abs(med - sr.best) / Math.hypot(Number.isFinite(sideSigma) ? sideSigma : NaN, half);
   if (sr.kind === 'upperLimit') {

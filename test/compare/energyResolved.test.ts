@@ -86,3 +86,18 @@ describe('channels', () => {
       .toThrow(/kab applies to pp only, not pgamma/);
   });
 });
+
+describe('forecast with energy-resolved survival', () => {
+  it('one call with tables equals single-energy calls with the survival at each energy (K_pi rule)', async () => {
+    const { expectedGamma } = await import('../../src/compare/reverse.js');
+    const { parseMeasurement } = await import('../../src/compare/measurement.js');
+    const m = parseMeasurement({ kind: 'normalisation', energyUnit: 'GeV', valueUnit: 'GeV^-1 cm^-2 s^-1 sr^-1', e0: 1e5, norm: 1e-18, err: 2e-19, index: 2.7, energyRange: [5e3, 2e6] });
+    const eg = [2e4, 3e5, 1e6];
+    const table = expectedGamma({ measurement: m, factors: [{ template: 't', kI: 2, survivalByEnergy: { energiesGeV: E, values: P } }], energiesGammaGeV: eg, methods: ['kpi'], samples: 500, seed: 4 });
+    eg.forEach((e, j) => {
+      const one = expectedGamma({ measurement: m, factors: [{ template: 't', kI: 2, survivalMean: P[E.indexOf(e)] }], energiesGammaGeV: [e], methods: ['kpi'], samples: 500, seed: 4 });
+      const a = table.components.find((c) => c.name === 'combined')!.atEnergies[j].median, b = one.components.find((c) => c.name === 'combined')!.atEnergies[0].median;
+      expect(rel(a, b)).toBeLessThan(1e-12);
+    });
+  });
+});
