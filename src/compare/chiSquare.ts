@@ -59,3 +59,19 @@ export function chiSquareSurvival(chi2: number, dof: number): number {
   const a = dof / 2, x = chi2 / 2, lnGa = lnGammaHalfInteger(dof);
   return x < a + 1 ? 1 - lowerSeries(a, x, lnGa) : upperFraction(a, x, lnGa);
 }
+
+/**
+ * x with P(chi^2_dof >= x) = alpha (0 < alpha < 1), by bisection on
+ * {@link chiSquareSurvival} to 1e-12 relative. Check value: alpha 0.05,
+ * dof 2 gives -2 ln 0.05 = 5.9915 (the chi^2_2 survival is exp(-x/2)).
+ */
+export function chiSquareUpperQuantile(alpha: number, dof: number): number {
+  if (!(alpha > 0 && alpha < 1)) return NaN;
+  let lo = 0, hi = 1;
+  while (chiSquareSurvival(hi, dof) > alpha) hi *= 2;
+  while (hi - lo > 1e-12 * hi) {
+    const mid = 0.5 * (lo + hi);
+    if (chiSquareSurvival(mid, dof) > alpha) lo = mid; else hi = mid;
+  }
+  return 0.5 * (lo + hi);
+}

@@ -4,22 +4,24 @@
  *
  * 1. skyspan's own short form:
  *    `{ "templates": [ { "name": "t1", "kI": 2.4, "survivalMean": 0.93, "weight": 1 }, ... ] }`
- *    (survivalMean and weight optional, for all templates or none);
+ *    (survivalMean and weight optional, for all templates or none); per gamma-ray
+ *    energy instead: `"kIByEnergy": { "energiesGeV": [...], "values": [...] }` and
+ *    `"survivalByEnergy"` alike (compare/ensemble.ts reads them log-log, no extrapolation);
  * 2. the JSON table the factors command writes (`{ "rows": [ { "template", "plane",
  *    "energyGeV", "target", "kI", ... } ], ... }`): one target is chosen (the only one, or
- *    `target`), and per template the plane whose energy is nearest, in log energy, to
- *    `energyGeV` (plane 0 when the planes carry no energy).
+ *    `target`); a template whose planes all carry an energy gives a per-energy
+ *    table of k_I over its planes, otherwise plane 0 is used (with a note).
  */
 import { readFileSync } from 'node:fs';
 import { InputError } from '../core/errors.js';
-import type { TemplateFactor } from './ensemble.js';
+import type { EnergyTable, TemplateFactor } from './ensemble.js';
 
 /** What {@link readFactors} returns. */
 export interface FactorsFile { factors: TemplateFactor[]; notes: string[]; target?: string }
 
 interface Row { template: string; plane: number; energyGeV: number | null; target: string; kI: number }
 
-function fromRows(rows: unknown[], file: string, opts: { target?: string; energyGeV?: number }): FactorsFile {
+function fromRows(rows: unknown[], file: string, opts: { target?: string }): FactorsFile {
   const rs = rows.map((r, i) => {
     const o = r as Partial<Row>;
     if (typeof o.template !== 'string' || typeof o.target !== 'string' || typeof o.kI !== 'number' || typeof o.plane !== 'number') {
@@ -36,19 +38,20 @@ function fromRows(rows: unknown[], file: string, opts: { target?: string; energy
   const notes: string[] = [];
   const factors: TemplateFactor[] = [];
   for (const [template, list] of byTemplate) {
-    let best = list[0];
-    if (list.length > 1 && opts.energyGeV !== undefined && list.every((r) => typeof r.energyGeV === 'number' && r.energyGeV > 0)) {
-      const d = (r: Row) => Math.abs(Math.log((r.energyGeV as number) / opts.energyGeV!));
-      best = list.reduce((a, b) => (d(b) < d(a) ? b : a));
-    } else if (list.length > 1) best = list.find((r) => r.plane === 0) ?? list[0];
-    if (list.length > 1) notes.push(`template '${template}': plane ${best.plane}${best.energyGeV ? ` (${best.energyGeV} GeV)` : ''} of ${list.length} used`);
+    if (list.length > 1 && list.every((r) => typeof r.energyGeV === 'number' && r.energyGeV > 0)) {
+      const sorted = [...list].sort((a, b) => (a.energyGeV as number) - (b.energyGeV as number));
+      factors.push({ template, kIByEnergy: { energiesGeV: sorted.map((r) => r.energyGeV as number), values: sorted.map((r) => r.kI) } });
+      continue;
+    }
+    const best = list.find((r) => r.plane === 0) ?? list[0];
+    if (list.length > 1) notes.push(`template '${template}': plane ${best.plane} of ${list.length} used (the planes carry no energy)`);
     factors.push({ template, kI: best.kI });
   }
   return { factors, notes, target };
 }
 
 /** Parses a factors document (already JSON-parsed). */
-export function parseFactors(doc: unknown, file = '<factors>', opts: { target?: string; energyGeV?: number } = {}): FactorsFile {
+export function parseFactors(doc: unknown, file = '<factors>', opts: { target?: string } = {}): FactorsFile {
   const d = doc as { templates?: unknown; rows?: unknown };
   if (d && Array.isArray(d.rows)) return fromRows(d.rows, file, opts);
   if (!d || !Array.isArray(d.templates)) {
@@ -57,20 +60,29 @@ export function parseFactors(doc: unknown, file = '<factors>', opts: { target?: 
   const factors = d.templates.map((t, i): TemplateFactor => {
     const o = t as Record<string, unknown>;
     const kp = `templates[${i}]`;
-    for (const k of Object.keys(o ?? {})) if (!['name', 'kI', 'survivalMean', 'weight'].includes(k)) {
-      throw new InputError(`unknown key "${k}"`, { file, keyPath: `${kp}.${k}` }, 'allowed: name, kI, survivalMean, weight');
+    const allowed = ['name', 'kI', 'kIByEnergy', 'survivalMean', 'survivalByEnergy', 'weight'];
+    for (const k of Object.keys(o ?? {})) if (!allowed.includes(k)) {
+      throw new InputError(`unknown key "${k}"`, { file, keyPath: `${kp}.${k}` }, `allowed: ${allowed.join(', ')}`);
     }
     if (typeof o?.name !== 'string') throw new InputError('name must be a string', { file, keyPath: `${kp}.name` });
     for (const k of ['kI', 'survivalMean', 'weight']) if (o[k] !== undefined && typeof o[k] !== 'number') {
       throw new InputError(`${k} must be a number`, { file, keyPath: `${kp}.${k}` });
     }
-    return { template: o.name, kI: o.kI as number, survivalMean: o.survivalMean as number | undefined, weight: o.weight as number | undefined };
+    const tableOf = (k: string): EnergyTable | undefined => {
+      const t = o[k] as { energiesGeV?: unknown; values?: unknown } | undefined;
+      if (t === undefined) return undefined;
+      const nums = (x: unknown) => Array.isArray(x) && x.every((v) => typeof v === 'number');
+      if (!t || !nums(t.energiesGeV) || !nums(t.values)) throw new InputError(`${k} must be { "energiesGeV": [numbers], "values": [numbers] }`, { file, keyPath: `${kp}.${k}` });
+      return { energiesGeV: t.energiesGeV as number[], values: t.values as number[] };
+    };
+    return { template: o.name, kI: o.kI as number | undefined, kIByEnergy: tableOf('kIByEnergy'), survivalMean: o.survivalMean as number | undefined,
+      survivalByEnergy: tableOf('survivalByEnergy'), weight: o.weight as number | undefined };
   });
   return { factors, notes: [] };
 }
 
 /** Reads a factors JSON file (see the module comment). */
-export function readFactors(path: string, opts: { target?: string; energyGeV?: number } = {}): FactorsFile {
+export function readFactors(path: string, opts: { target?: string } = {}): FactorsFile {
   let doc: unknown;
   try { doc = JSON.parse(readFileSync(path, 'utf8')); } catch (e) {
     throw new InputError(e instanceof SyntaxError ? `not valid JSON: ${e.message}` : `cannot read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path });

@@ -1,12 +1,15 @@
 /**
  * Draws of the gamma-ray intensity measured in region A at chosen energies,
- * from its uncertainty: either tabulated points (each point a split normal,
- * "value -errLow +errHigh", independent; see splitNormal.ts) read between
- * points by log-log interpolation, or a fitted spectral model whose internal
- * parameters are drawn from the fit's covariance (multivariate normal, by
- * Cholesky factor: theta = theta0 + L z; common practice, no source).
- * Upper limits carry no sampled value and are not used. No extrapolation:
- * energies outside the measured points give NaN.
+ * from its uncertainty: either tabulated points, each drawn independently
+ * from the two-piece log-normal matched to "value -errLow +errHigh"
+ * (logNormalPoint.ts: always positive, median = value, 15.87 and 84.13 %
+ * points = value - errLow and value + errHigh) and read between points by
+ * log-log interpolation, or a fitted spectral model whose internal parameters
+ * are drawn from the fit's covariance (multivariate normal, by Cholesky factor:
+ * theta = theta0 + L z; common practice, no source). Upper limits carry no
+ * sampled value (they enter the proton fit, not the draws). No extrapolation:
+ * energies outside the measured points give NaN. A draw that is not finite
+ * and positive is a ComputeError naming the point; nothing is dropped.
  */
 import { ComputeError, InputError } from '../core/errors.js';
 import type { SpectrumPoints } from '../physics/points.js';
@@ -14,6 +17,7 @@ import type { SpectrumFit } from '../physics/fit.js';
 import { modelFromInternal } from '../physics/fit.js';
 import { evaluateSpectrum, type SpectralModel } from '../physics/spectrum.js';
 import { cholesky } from './cholesky.js';
+import { logNormalWidths, drawLogNormalPoint } from './logNormalPoint.js';
 import type { Random } from './random.js';
 
 /** The gamma-ray input: measured points, or a model (optionally with its fit for the uncertainty) over an energy range. */
@@ -82,9 +86,11 @@ function pointsSampler(p: SpectrumPoints): GammaSampler {
     throw new InputError(`two gamma-ray points at the same energy ${e[i]} GeV`, { file: p.source }, 'merge or drop one of them');
   }
   const lnE = e.map(Math.log);
-  const notes = ['gamma-ray points drawn as independent split normals (value -errLow +errHigh); read between points by log-log interpolation; no extrapolation'];
+  const w = logNormalWidths(v, lo, hi, e, p.source);
+  const notes = ['gamma-ray points drawn independently from two-piece log-normals matched to each point (median = value, 15.87/84.13 % points = value - errLow / value + errHigh); read between points by log-log interpolation; no extrapolation',
+    ...w.notes];
   const nUl = p.value.length - k;
-  if (nUl > 0) notes.push(`${nUl} gamma-ray upper limit(s) not used`);
+  if (nUl > 0) notes.push(`${nUl} gamma-ray upper limit(s) not drawn; they enter the KAB proton fit as one-sided constraints`);
   return {
     rangeGeV: [e[0], e[k - 1]], notes, source: p.source,
     central(energies) {
@@ -95,7 +101,12 @@ function pointsSampler(p: SpectrumPoints): GammaSampler {
       const m = energies.length, b = brackets(lnE, energies);
       const out = new Float64Array(n * m), draw = new Float64Array(k);
       for (let s = 0; s < n; s++) {
-        for (let i = 0; i < k; i++) draw[i] = rng.splitNormal(v[i], lo[i], hi[i]);
+        for (let i = 0; i < k; i++) {
+          draw[i] = drawLogNormalPoint(v[i], w.sLow[i], w.sHigh[i], rng);
+          if (!(draw[i] > 0 && draw[i] < Infinity)) {
+            throw new ComputeError(`gamma-ray point at ${e[i]} GeV (value ${v[i]}, errors -${lo[i]} +${hi[i]}) gave the draw ${draw[i]}`);
+          }
+        }
         for (let j = 0; j < m; j++) out[s * m + j] = interp(b, j, draw);
       }
       return out;

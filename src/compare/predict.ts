@@ -2,28 +2,33 @@
  * The neutrino intensity predicted in the neutrino analysis's region from
  * gamma rays measured in region A. For each Monte Carlo sample s:
  *
- *   I_nu,all(E) = r_m(E) * (k_I,t / P_t) * I_gamma,A(2E)
+ *   I_nu,all(E) = r_m(E) * (k_I,t(2E) / P_t(2E)) * I_gamma,A(2E)
  *
  * with I_gamma,A drawn from its errors (gammaSampler.ts), template t drawn from
  * the ensemble (its extrapolation factor k_I,t and mean survival P_t in A go
- * together; ensemble.ts), intrinsic = measured / P (de-absorption), and the
+ * together, both read at the gamma-ray energy 2E; ensemble.ts), intrinsic =
+ * measured / P (de-absorption), and the
  * conversion method m drawn with equal probability from the methods in use
  * (conversion.ts). Per flavour: all-flavour times the flavour fraction at
  * Earth (1:1:1 by default).
  *
  * Each source of uncertainty is also propagated alone, the others held at
  * their centre (gamma-ray points at their values, k_I and P at the ensemble's
- * weighted medians, the primary method): components 'gamma', 'template'
+ * weighted medians at each energy, the primary method): components 'gamma', 'template'
  * (k_I only), 'absorption' (P only), 'method'; 'combined' varies all. The
  * components share the draws of the combined run (common random numbers).
  * A first-order propagation of the gamma-ray errors at E0 cross-checks the
- * 'gamma' component.
+ * 'gamma' component. The KAB proton fit sees every gamma-ray point, upper
+ * limits included, de-absorbed by the central survival at its own energy.
+ * Methods by channel: physics/hadronic/channels.ts (p-gamma: K_pi rule only).
  */
 import { ComputeError, InputError } from '../core/errors.js';
 import { FLAVOUR_RATIO_EARTH, splitFlavours, type FlavourRatio, type FlavourSplit } from '../physics/hadronic/flavour.js';
+import { channelWords, checkMethodChannel, defaultMethods } from '../physics/hadronic/channels.js';
 import type { PionChannel } from '../physics/hadronic/kpiRule.js';
-import { kabRatios, kpiRatios, type MethodId, type MethodRatios } from './conversion.js';
-import { buildEnsemble, drawTemplate, type TemplateFactor } from './ensemble.js';
+import type { SpectrumPoints } from '../physics/points.js';
+import { METHOD_SPREAD_NOTE, kabRatios, kpiRatios, type MethodId, type MethodRatios } from './conversion.js';
+import { buildEnsemble, centralSurvivalAt, drawTemplate, ensembleAt, type TemplateFactor } from './ensemble.js';
 import { gammaSampler, type GammaInput } from './gammaSampler.js';
 import { checkLinear, linearPropagate, resolveMonteCarloOptions, type LinearCheck } from './propagate.js';
 import { Random } from './random.js';
@@ -38,7 +43,7 @@ export interface PredictInput {
   e0GeV: number;
   /** Neutrino energies for the spectrum; default: half the gamma-ray point energies (or a grid for a model). */
   energiesNuGeV?: ArrayLike<number>;
-  /** Methods, the first is the primary one; default ['kab', 'kpi']. */
+  /** Methods, the first is the primary one; default by channel: pp ['kab', 'kpi'], p-gamma ['kpi']. */
   methods?: MethodId[];
   channel?: PionChannel;
   flavourRatio?: FlavourRatio;
@@ -110,20 +115,25 @@ export function predictNeutrinos(input: PredictInput): Prediction {
   const twice = allE.map((e) => 2 * e);
   const m = allE.length;
 
+  // the ensemble at the gamma-ray energies 2E (an energy outside a table is an InputError)
+  const at = ensembleAt(ens, twice);
+  if (ens.energyResolved) notes.push('k_I and survival read per gamma-ray energy 2E from each template\'s tables (log-log between tabulated energies, no extrapolation)');
+
   // methods: ratio tables at all energies
-  const wantedMethods = input.methods ?? ['kab', 'kpi'];
+  const channel = input.channel ?? 'pp';
+  const wantedMethods = input.methods ?? defaultMethods(channel);
   if (wantedMethods.length === 0) throw new InputError('no conversion method chosen', { keyword: 'methods' }, 'use kab, kpi or both');
-  const intrinsicCentral = sampler.centralPoints();
-  intrinsicCentral.value = Float64Array.from(intrinsicCentral.value, (v) => v / ens.survivalCentral);
+  for (const id of wantedMethods) checkMethodChannel(id, channel);
   const ratios: MethodRatios[] = [];
   for (const id of wantedMethods) {
-    if (id === 'kpi') ratios.push(kpiRatios(allE, input.channel));
-    else if (id === 'kab') {
+    if (id === 'kpi') ratios.push(kpiRatios(allE, channel));
+    else {
+      const intrinsicCentral = intrinsicForFit(input.gamma.kind === 'points' ? input.gamma.points : sampler.centralPoints(), (e) => centralSurvivalAt(ens, e));
       try { ratios.push(kabRatios(allE, intrinsicCentral)); } catch (e) {
         if (!(e instanceof InputError || e instanceof ComputeError)) throw e;
         warnings.push(`KAB method dropped: ${e.message}; the method spread is not included`);
       }
-    } else throw new InputError(`unknown conversion method "${String(id)}"`, { keyword: 'methods' }, 'use kab or kpi');
+    }
   }
   if (ratios.length === 0) throw new ComputeError('no conversion method could be applied');
   const M = ratios.length;
@@ -139,10 +149,12 @@ export function predictNeutrinos(input: PredictInput): Prediction {
     const out = new Float64Array(n * m);
     for (let s = 0; s < n; s++) {
       const t = tIdx[s];
-      const k = vary.template ? ens.kI[t] : ens.kICentral;
-      const p = vary.absorption ? ens.survival[t] : ens.survivalCentral;
       const r = ratios[vary.method ? mIdx[s] : 0].ratio;
-      for (let j = 0; j < m; j++) out[s * m + j] = r[j] * (k / p) * (vary.gamma ? gD[s * m + j] : gC[j]);
+      for (let j = 0; j < m; j++) {
+        const k = vary.template ? at.kI[t * m + j] : at.kICentral[j];
+        const p = vary.absorption ? at.survival[t * m + j] : at.survivalCentral[j];
+        out[s * m + j] = r[j] * (k / p) * (vary.gamma ? gD[s * m + j] : gC[j]);
+      }
     }
     return out;
   };
@@ -150,7 +162,8 @@ export function predictNeutrinos(input: PredictInput): Prediction {
     const col = new Float64Array(n);
     return Array.from({ length: m }, (_, j) => {
       for (let s = 0; s < n; s++) col[s] = a[s * m + j];
-      const sm = summariseSamples(col, { label: `predicted intensity at ${allE[j].toPrecision(4)} GeV (${name})` });
+      // no draw is dropped: a non-finite value is a ComputeError (maxNonFiniteFraction 0)
+      const sm = summariseSamples(col, { label: `predicted intensity at ${allE[j].toPrecision(4)} GeV (${name})`, maxNonFiniteFraction: 0 });
       warnings.push(...sm.warnings);
       return sm;
     });
@@ -159,7 +172,7 @@ export function predictNeutrinos(input: PredictInput): Prediction {
     { name: 'gamma', description: 'gamma-ray measurement errors', vary: { gamma: true, template: false, absorption: false, method: false }, on: true },
     { name: 'template', description: `template spread of k_I (${ens.names.length} templates)`, vary: { gamma: false, template: true, absorption: false, method: false }, on: true },
     { name: 'absorption', description: 'template spread of the survival probability', vary: { gamma: false, template: false, absorption: true, method: false }, on: ens.hasSurvival },
-    { name: 'method', description: `conversion method (${ratios.map((r) => r.id).join(', ')}, equal weight)`, vary: { gamma: false, template: false, absorption: false, method: true }, on: M > 1 },
+    { name: 'method', description: `conversion method (${ratios.map((r) => r.id).join(', ')}, equal weight)${ratios.some((r) => r.id === 'kab') ? `; ${METHOD_SPREAD_NOTE}` : ''}`, vary: { gamma: false, template: false, absorption: false, method: true }, on: M > 1 },
     { name: 'combined', description: 'all of the above together', vary: { gamma: true, template: true, absorption: true, method: true }, on: true },
   ];
   const components: PredictionComponent[] = [];
@@ -179,24 +192,25 @@ export function predictNeutrinos(input: PredictInput): Prediction {
 
   // linear cross-check of the gamma component at E0
   const lin = sampler.linear(2 * e0);
-  const scale = ratios[0].ratio[0] * ens.kICentral / ens.survivalCentral;
+  const scale = ratios[0].ratio[0] * at.kICentral[0] / at.survivalCentral[0];
   const lp = linearPropagate((x) => scale * lin.fn(x), lin.centre, lin.sigma, lin.covariance);
   const linearCheck = checkLinear(lp, components[0].atE0);
 
   const ratio = input.flavourRatio ?? FLAVOUR_RATIO_EARTH;
   const methods = ratios.map((r) => ({
     id: r.id, label: r.label, notes: r.notes,
-    atE0: r.ratio[0] * ens.kICentral / ens.survivalCentral * gC[0],
-    atEnergies: Float64Array.from({ length: m - 1 }, (_, j) => r.ratio[j + 1] * ens.kICentral / ens.survivalCentral * gC[j + 1]),
+    atE0: r.ratio[0] * at.kICentral[0] / at.survivalCentral[0] * gC[0],
+    atEnergies: Float64Array.from({ length: m - 1 }, (_, j) => r.ratio[j + 1] * at.kICentral[j + 1] / at.survivalCentral[j + 1] * gC[j + 1]),
   }));
   for (const r of ratios) notes.push(...r.notes);
   const assumptions = [
     `the sky outside the measured region looks like each template (the template shape holds in the unseen sky)${input.region ? `; target region: ${input.region}` : ''}`,
-    'all of the measured gamma-ray emission is hadronic (pp collisions); no leptonic or unresolved-source part',
+    `all of the measured gamma-ray emission is hadronic (${channelWords(channel)}); no leptonic or unresolved-source part`,
     `neutrino flavour ratio at Earth ${ratio.join(':')} (e:mu:tau), neutrinos plus antineutrinos`,
-    ens.hasSurvival ? 'gamma rays de-absorbed with each template\'s mean survival probability in the measured region: intrinsic = measured / survival'
+    ens.hasSurvival ? 'gamma rays de-absorbed with each template\'s mean survival probability in the measured region at the gamma-ray energy: intrinsic = measured / survival'
       : 'no absorption correction (survival probability 1 for every template)',
-    `the extrapolation factors k_I are energy-independent over the range used`,
+    ens.energyResolved ? 'k_I and survival taken at each gamma-ray energy 2E (log-log interpolation between tabulated energies)'
+      : 'the extrapolation factors k_I and the survival are the same at every energy used',
     `conversion methods: ${ratios.map((r) => r.label).join('; ')}; primary: ${ratios[0].id}`,
   ];
   return {
@@ -204,6 +218,12 @@ export function predictNeutrinos(input: PredictInput): Prediction {
     flavourRatio: ratio, flavourFraction: splitFlavours(1, ratio), combinedAtE0, combinedAtEnergies, linearCheck,
     samples: n, seed, templates: ens.names, assumptions, notes, warnings: [...new Set(warnings)],
   };
+}
+
+/** Points de-absorbed for the proton fit: every point (upper limits too) divided by the central survival at its own energy. */
+function intrinsicForFit(p: SpectrumPoints, survivalAt: (energiesGeV: Float64Array) => Float64Array): SpectrumPoints {
+  const s = survivalAt(p.energyGeV);
+  return { ...p, value: p.value.map((v, i) => v / s[i]), errLow: p.errLow.map((v, i) => v / s[i]), errHigh: p.errHigh.map((v, i) => v / s[i]) };
 }
 
 /** The component of a prediction by name (undefined when it was not run). */

@@ -8,7 +8,16 @@ import type { SpectrumPoints } from '../physics/points.js';
 import type { NeutrinoMeasurement } from './measurement.js';
 import { splitNormalQuantile } from './splitNormal.js';
 import type { Prediction } from './predict.js';
-import { flavourFactor, type PointsComparison, type ReferenceComparison } from './tension.js';
+import { describePValue, flavourFactor, type PointsComparison, type ReferenceComparison } from './tension.js';
+
+/** What the columns of the summary table mean, written beside it. */
+export const SUMMARY_DEFINITIONS = [
+  'median, p16, p84: the 50th, 15.87th and 84.13th percentiles (Phi(-1), Phi(+1)) of the Monte Carlo draws, type 7 of Hyndman & Fan 1996 (scaling/quantiles.ts)',
+  'relativeHalfWidth = (p84 - p16) / (2 median)',
+  'predicted (name): the prediction with only that source of uncertainty varied, the others at their centre (weighted medians of the templates at each energy, the primary method)',
+  'method (central): the method\'s value with every input at its centre',
+  'Gaussian (tension row): |mean d| / std d over the paired draws d = measured - predicted (counted tension); for a likelihood measurement |median prediction - best fit| / sqrt(sigma_measured^2 + sigma_predicted^2), sigma_measured the profile\'s one-sigma distance on the prediction\'s side',
+];
 
 /** Data of the spectrum plot. Arrays of one block have equal length. */
 export interface ComparisonPlotData {
@@ -84,10 +93,12 @@ export function summaryRows(r: ComparisonReport): Record<string, string | number
   for (const m of p.methods) rows.push({ quantity: `method ${m.id} (central)`, description: m.label, energyGeV: p.e0GeV, median: f * m.atE0, p16: '', p84: '', relativeHalfWidth: '' });
   if (r.reference) {
     const x = r.reference;
-    rows.push({ quantity: 'measured', description: r.measurement!.label, energyGeV: x.energyGeV, median: x.measured.median, p16: x.measured.p16, p84: x.measured.p84, relativeHalfWidth: '' });
+    rows.push({ quantity: 'measured', description: `${r.measurement!.label}: ${x.measuredDefinition}`, energyGeV: x.energyGeV, median: x.measured.median, p16: x.measured.p16, p84: x.measured.p84, relativeHalfWidth: '' });
     rows.push({ quantity: 'ratio measured/predicted', description: 'paired Monte Carlo draws', energyGeV: x.energyGeV, median: x.ratio.median, p16: x.ratio.p16, p84: x.ratio.p84, relativeHalfWidth: '' });
-    rows.push({ quantity: 'tension (sigma)', description: `${x.tension.lowerBound ? 'at least; ' : ''}measured ${x.tension.direction} prediction; Gaussian ${fmt(x.tension.gaussianSigma)}`,
+    rows.push({ quantity: 'tension (sigma)', description: `${x.tension.lowerBound ? 'at least; ' : ''}measured ${x.tension.direction} prediction; ${describePValue(x.tension)}; Gaussian ${fmt(x.tension.gaussianSigma)} (defined below)`,
       energyGeV: x.energyGeV, median: x.tension.sigma, p16: '', p84: '', relativeHalfWidth: '' });
+    rows.push({ quantity: 'p-value', description: `${x.tension.sided}-sided; Monte Carlo standard error ${fmt(x.tension.pValueStdError)}${x.tension.pValueUpper95 !== undefined ? `; 95 % upper bound ${fmt(x.tension.pValueUpper95)}` : ''}`,
+      energyGeV: x.energyGeV, median: x.tension.pValue, p16: '', p84: '', relativeHalfWidth: '' });
   }
   if (r.points) rows.push({ quantity: 'chi2 over points', description: `dof ${r.points.dof}, p = ${fmt(r.points.pValue)} (${fmt(r.points.sigma)} sigma)`, energyGeV: '', median: r.points.chi2, p16: '', p84: '', relativeHalfWidth: '' });
   return rows;
@@ -133,9 +144,10 @@ export function renderComparison(r: ComparisonReport, formats: ('csv' | 'md' | '
       if (r.points) out.push({ name: `${base}-points.csv`, text: toCsv(r.points.rows.map((x) => ({ ...x, upperLimit: x.upperLimit ? 1 : 0 })), head) });
     } else if (f === 'md') {
       const lines = [`# Neutrino prediction and comparison`, '', ...head.map((h) => `- ${h}`), '', '## At the reference energy', '', ...toMd(sum), '',
+        ...SUMMARY_DEFINITIONS.map((d) => `- ${d}`), '',
         '## Spectrum', '', ...toMd(spec), ''];
       if (r.points) lines.push('## Points', '', ...toMd(r.points.rows.map((x) => ({ ...x, upperLimit: x.upperLimit ? 'yes' : 'no' }))), '', `chi2 definition: ${r.points.definition}`, '');
-      if (r.reference) lines.push(`Tension definition: ${r.reference.tension.definition}.`, '');
+      if (r.reference) lines.push(`Tension definition: ${r.reference.tension.definition}.`, '', ...r.reference.notes.map((n) => `- ${n}`), '');
       lines.push(`Linear cross-check (gamma-ray errors at E0): ${p.linearCheck.note}.`, '');
       if (p.warnings.length) lines.push('## Warnings', '', ...p.warnings.map((w) => `- ${w}`), '');
       lines.push('## Notes', '', ...p.notes.map((n) => `- ${n}`), '');

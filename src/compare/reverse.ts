@@ -8,7 +8,8 @@
  *
  * with k_I,t the factor from the footprint to the neutrino region (computed
  * with the footprint as the measured region), P_t the template's mean survival
- * in the footprint (re-absorption), r_m the method's ratio
+ * in the footprint (re-absorption), both read at the gamma-ray energy E
+ * (ensemble.ts: log-log between tabulated energies, never beyond them), r_m the method's ratio
  * I_nu,all(E) / I_gamma,intrinsic(2E) (conversion.ts; the KAB ratio from a
  * proton fit to the neutrino spectrum's central values), I_nu,all drawn from
  * the measurement: a normalisation's norm as a split normal, a band's index
@@ -18,10 +19,11 @@
  */
 import { ComputeError, InputError } from '../core/errors.js';
 import { FLAVOUR_RATIO_EARTH, splitFlavours, type FlavourRatio } from '../physics/hadronic/flavour.js';
+import { channelWords, checkMethodChannel, defaultMethods } from '../physics/hadronic/channels.js';
 import type { PionChannel } from '../physics/hadronic/kpiRule.js';
 import type { SpectrumPoints } from '../physics/points.js';
-import { kabRatios, kpiRatios, type MethodId, type MethodRatios } from './conversion.js';
-import { buildEnsemble, drawTemplate, type TemplateFactor } from './ensemble.js';
+import { METHOD_SPREAD_NOTE, kabRatios, kpiRatios, type MethodId, type MethodRatios } from './conversion.js';
+import { buildEnsemble, drawTemplate, ensembleAt, type TemplateFactor } from './ensemble.js';
 import { gammaSampler } from './gammaSampler.js';
 import type { NeutrinoMeasurement } from './measurement.js';
 import { resolveMonteCarloOptions } from './propagate.js';
@@ -100,9 +102,14 @@ export function expectedGamma(input: ReverseInput): ReverseResult {
   if (!nu.central.some(Number.isFinite)) throw new ComputeError('no gamma-ray energy has half its value inside the neutrino measurement\'s energy range');
   const notes: string[] = [], warnings: string[] = [];
   if (!m.energyRangeGeV && m.kind !== 'points') notes.push('no energyRange in the measurement: its power law is used from E0/10 to 10 E0');
+  if (m.kind !== 'points' && m.likelihood?.kind === 'upperLimit') notes.push('the measurement is an upper limit: the forecast is the gamma-ray counterpart of the limit itself (an upper forecast, without spread from the measurement)');
+  const at = ensembleAt(ens, eg);
+  const channel = input.channel ?? 'pp';
+  const wantedMethods = input.methods ?? defaultMethods(channel);
+  for (const id of wantedMethods) checkMethodChannel(id, channel);
   const ratios: MethodRatios[] = [];
-  for (const id of input.methods ?? ['kab', 'kpi']) {
-    if (id === 'kpi') ratios.push(kpiRatios(half, input.channel));
+  for (const id of wantedMethods) {
+    if (id === 'kpi') ratios.push(kpiRatios(half, channel));
     else {
       try { ratios.push(kabRatios(half, nu.points, { fitTarget: 'neutrinoAllFlavour' })); } catch (e) {
         if (!(e instanceof InputError || e instanceof ComputeError)) throw e;
@@ -119,7 +126,7 @@ export function expectedGamma(input: ReverseInput): ReverseResult {
     { name: 'neutrino', description: 'neutrino measurement errors', v: [1, 0, 0, 0], on: true },
     { name: 'template', description: `template spread of k_I (${ens.names.length} templates)`, v: [0, 1, 0, 0], on: true },
     { name: 'absorption', description: 'template spread of the survival probability', v: [0, 0, 1, 0], on: ens.hasSurvival },
-    { name: 'method', description: 'conversion method (equal weight)', v: [0, 0, 0, 1], on: M > 1 },
+    { name: 'method', description: `conversion method (equal weight)${ratios.some((r) => r.id === 'kab') ? `; ${METHOD_SPREAD_NOTE}` : ''}`, v: [0, 0, 0, 1], on: M > 1 },
     { name: 'combined', description: 'all of the above together', v: [1, 1, 1, 1], on: true },
   ];
   const components: ReverseResult['components'] = [];
@@ -131,7 +138,7 @@ export function expectedGamma(input: ReverseInput): ReverseResult {
       if (!Number.isFinite(nu.central[j])) continue;
       for (let s = 0; s < n; s++) {
         const t = tIdx[s];
-        const kI = c.v[1] ? ens.kI[t] : ens.kICentral, p = c.v[2] ? ens.survival[t] : ens.survivalCentral;
+        const kI = c.v[1] ? at.kI[t * k + j] : at.kICentral[j], p = c.v[2] ? at.survival[t * k + j] : at.survivalCentral[j];
         const r = ratios[c.v[3] ? mIdx[s] : 0].ratio[j];
         col[s] = (p / kI) * (c.v[0] ? nu.draws[s * k + j] : nu.central[j]) / r;
       }
@@ -145,12 +152,12 @@ export function expectedGamma(input: ReverseInput): ReverseResult {
   if (kept.length < k) notes.push(`${k - kept.length} gamma-ray energies dropped: half the energy lies outside the neutrino measurement's range`);
   return {
     energiesGammaGeV: Float64Array.from(kept, (j) => eg[j]), components, samples: n, seed, notes: [...notes, ...ratios.flatMap((r) => r.notes)], warnings: [...new Set(warnings)],
-    methods: ratios.map((r) => ({ id: r.id, label: r.label, atEnergies: Float64Array.from(kept, (j) => (ens.survivalCentral / ens.kICentral) * nu.central[j] / r.ratio[j]) })),
+    methods: ratios.map((r) => ({ id: r.id, label: r.label, atEnergies: Float64Array.from(kept, (j) => (at.survivalCentral[j] / at.kICentral[j]) * nu.central[j] / r.ratio[j]) })),
     assumptions: [
       'the neutrino-region sky and the survey footprint both follow each template (the template shape holds in the unseen sky)',
-      'all of the neutrino emission comes from hadronic (pp) gamma-ray sources; the expected gamma rays are the hadronic counterpart only',
+      `all of the neutrino emission comes from hadronic (${channelWords(channel)}) gamma-ray sources; the expected gamma rays are the hadronic counterpart only`,
       `neutrino flavour ratio at Earth ${ratio.join(':')}${m.flavour === 'all' ? '' : `; the ${m.flavour}-flavour measurement scaled by ${toAll.toPrecision(4)} to all flavours`}`,
-      ens.hasSurvival ? 'gamma rays re-absorbed with each template\'s mean survival probability in the footprint' : 'no absorption (survival 1)',
+      ens.hasSurvival ? 'gamma rays re-absorbed with each template\'s mean survival probability in the footprint at each gamma-ray energy' : 'no absorption (survival 1)',
       `conversion methods: ${ratios.map((r) => r.label).join('; ')}`,
     ],
   };

@@ -2,10 +2,12 @@
  * Summaries of Monte Carlo samples: median, 16/84 and 2.5/97.5 percentiles,
  * mean and standard deviation, with non-finite samples counted, dropped and
  * reported. A set whose samples are mostly non-finite cannot be summarised
- * honestly and is a ComputeError.
+ * honestly and is a ComputeError. Quantiles: type 7 of Hyndman & Fan 1996
+ * (scaling/quantiles.ts, the one quantile module).
  */
 import { ComputeError } from '../core/errors.js';
 import { kahanSum } from '../core/math.js';
+import { quantileSorted } from '../scaling/quantiles.js';
 
 /** Summary of one Monte Carlo quantity. Percentiles are of the finite samples. */
 export interface SampleSummary {
@@ -33,19 +35,6 @@ export interface SummaryOptions {
   label?: string;
   /** Largest tolerated fraction of non-finite samples (default 0.5); above it, ComputeError. */
   maxNonFiniteFraction?: number;
-}
-
-/**
- * Percentile q (0..1) of sorted finite values by linear interpolation between
- * order statistics, h = (n - 1) q (Hyndman & Fan 1996, Am. Stat. 50, 361,
- * definition 7; numpy's default). NaN for an empty array.
- */
-export function percentileSorted(sorted: ArrayLike<number>, q: number): number {
-  const n = sorted.length;
-  if (n === 0) return NaN;
-  const h = (n - 1) * q;
-  const lo = Math.floor(h), hi = Math.min(n - 1, lo + 1);
-  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
 
 /** Copies the finite values of `samples` into a new sorted Float64Array. */
@@ -86,11 +75,11 @@ export function summariseSamples(samples: ArrayLike<number>, options: SummaryOpt
   }
   return {
     n, finite,
-    median: percentileSorted(sorted, 0.5),
-    p16: percentileSorted(sorted, 0.15865525393145707),
-    p84: percentileSorted(sorted, 0.8413447460685429),
-    p2_5: percentileSorted(sorted, 0.025),
-    p97_5: percentileSorted(sorted, 0.975),
+    median: quantileSorted(sorted, 0.5),
+    p16: quantileSorted(sorted, 0.15865525393145707),
+    p84: quantileSorted(sorted, 0.8413447460685429),
+    p2_5: quantileSorted(sorted, 0.025),
+    p97_5: quantileSorted(sorted, 0.975),
     mean,
     std: finite > 1 ? Math.sqrt(ss / (finite - 1)) : 0,
     warnings,

@@ -39,6 +39,10 @@ export interface SpectrumPoints {
   eMaxGeV?: Float64Array;
   /** Where the points came from (file path). */
   source?: string;
+  /**
+   * One-sided confidence level of the upper limits, a fraction such as 0.95.
+   * When absent, fits that use it take 0.95 (DEFAULT_UL_CONFIDENCE in logResiduals.ts).
+   */
   ulConfidence?: number;
 }
 

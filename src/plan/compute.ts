@@ -9,19 +9,18 @@ import { readGammaPoints } from '../physics/fluxPoints/read.js';
 import { computeFactors } from '../scaling/factors.js';
 import type { FactorResult } from '../scaling/ensembleFactors.js';
 import type { TemplateFactor } from '../compare/ensemble.js';
-import type { Prediction } from '../compare/predict.js';
-import type { ReverseResult } from '../compare/reverse.js';
+import { predictNeutrinos, type Prediction } from '../compare/predict.js';
+import { expectedGamma, type ReverseResult } from '../compare/reverse.js';
 import { chiSquareOverPoints, compareAtReference, type PointsComparison, type ReferenceComparison } from '../compare/tension.js';
 import { runPopulationSection, type PopulationSectionResult } from '../populations/index.js';
 import type { ArtefactCache } from './cache.js';
 import type { ResolvedPlan } from './loadPlan.js';
 import { cachedRegions, isWholeSky, regionSurvival } from './regionWeights.js';
 import { loadRunTemplates, type RunTemplate } from './templateStage.js';
-import { forecastPerEnergy, predictPerEnergy } from './predictStage.js';
+import { factorTables, factorsAtEnergy, type SurvivalTable } from './predictStage.js';
 import { projectOnNeutrinoTemplate, type TemplateProjectionResult } from './projectionStage.js';
 
-/** Survival of one region: per template, at each gamma-ray energy. */
-export interface SurvivalTable { region: string; exposureWeighted: boolean; energiesGeV: number[]; byTemplate: Record<string, number[]> }
+export type { SurvivalTable };
 
 /** Everything a run computed. */
 export interface RunComputation {
@@ -89,7 +88,10 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
       forecastEnergies = Array.from({ length: 8 }, (_, i) => 2 * r[0] * Math.pow(r[1] / r[0], i / 7));
     }
   }
-  const gammaEnergies = uniqueSorted([...(points ? [2 * e0GeV, ...energiesNuGeV.map((e) => 2 * e)] : []), ...forecastEnergies]);
+  // the proton fit de-absorbs upper limits too: survival is needed at their energies
+  const ulEnergies = points ? Array.from(points.energyGeV).filter((_, i) => points.upperLimit[i]) : [];
+  const predictionGammaEnergies = points ? uniqueSorted([2 * e0GeV, ...energiesNuGeV.map((e) => 2 * e), ...ulEnergies]) : [];
+  const gammaEnergies = uniqueSorted([...predictionGammaEnergies, ...forecastEnergies]);
   const { templates, notes: tNotes } = await loadRunTemplates({
     files: rp.templateFiles, specs: rp.buildSpecs, shipped: rp.shipped, buildNside: plan.templates.buildNside,
     absorptionNside: plan.methods.absorptionNside, absorption, gammaEnergiesGeV: gammaEnergies, frame: plan.templates.frame, planFile: rp.file,
@@ -124,15 +126,6 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
     }
     return { region, exposureWeighted, energiesGeV: energies, byTemplate };
   };
-  const factorSet = (fr: FactorResult, target: string, surv: SurvivalTable | null) => (gammaEnergyGeV: number): TemplateFactor[] =>
-    templates.map((t) => {
-      const rows = fr.rows.filter((r) => r.template === t.name && r.target === target);
-      const k = nearestPlane(t.map.energiesGeV, gammaEnergyGeV);
-      const row = rows.find((r) => r.plane === k) ?? rows[0];
-      const j = surv ? surv.energiesGeV.findIndex((e) => Math.abs(e - gammaEnergyGeV) <= 1e-9 * e) : -1;
-      return { template: t.name, kI: row.kI, ...(surv ? { survivalMean: surv.byTemplate[t.name][j] } : {}), ...(weights ? { weight: weights[t.name] } : {}) };
-    });
-
   let factors: FactorResult | null = null, prediction: Prediction | null = null, perEnergy = false;
   let reference: ReferenceComparison | null = null, pointsComparison: PointsComparison | null = null, survival: SurvivalTable | null = null;
   let factorsAtE0: TemplateFactor[] = [];
@@ -142,15 +135,16 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   if (points && plan.gamma) {
     factors = computeFactors({ ...regionsBase, templates: factorTemplates, measured: plan.gamma.region,
       targets: uniqueNames([plan.neutrino.region, ...plan.targets]), exposureWeighted: plan.gamma.exposureWeighted });
-    survival = survivalIn(plan.gamma.region, plan.gamma.exposureWeighted, uniqueSorted([2 * e0GeV, ...energiesNuGeV.map((e) => 2 * e)]));
-    const at = factorSet(factors, plan.neutrino.region, survival);
-    factorsAtE0 = at(2 * e0GeV);
-    const r = predictPerEnergy({ gamma: { kind: 'points', points }, factorsFile: rp.file, ...conv, region: plan.neutrino.region, ...mc },
-      e0GeV, energiesNuGeV, (e) => at(2 * e));
-    prediction = r.prediction; perEnergy = r.perEnergy;
+    survival = survivalIn(plan.gamma.region, plan.gamma.exposureWeighted, predictionGammaEnergies);
+    const ft = factorTables(templates, factors, plan.neutrino.region, survival, weights);
+    notes.push(...ft.notes);
+    factorsAtE0 = factorsAtEnergy(ft.factors, 2 * e0GeV);
+    prediction = predictNeutrinos({ gamma: { kind: 'points', points }, factors: ft.factors, factorsFile: rp.file, ...conv, region: plan.neutrino.region, ...mc,
+      e0GeV, energiesNuGeV });
+    perEnergy = ft.factors.some((f) => f.kIByEnergy !== undefined || f.survivalByEnergy !== undefined);
     if (m.kind !== 'points') reference = compareAtReference(prediction, m);
     else pointsComparison = chiSquareOverPoints(prediction, m);
-    projection = projectOnNeutrinoTemplate({ rp, templates, factors, factorsAtE0, points, e0GeV,
+    projection = projectOnNeutrinoTemplate({ rp, templates, factors, factorsAtE0, factorTables: ft.factors, points, e0GeV,
       base: { factorsFile: rp.file, ...conv, ...mc } });
   }
   if (rp.neutrinoTemplateFile && !(points && plan.gamma)) notes.push('neutrino.template is used by the comparison of gamma-ray points only; this run has none, so it was not used');
@@ -159,8 +153,9 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
     forecastFactors = computeFactors({ ...regionsBase, templates: factorTemplates, measured: plan.forecast.footprint,
       targets: [plan.neutrino.region], exposureWeighted: plan.forecast.exposureWeighted });
     forecastSurvival = survivalIn(plan.forecast.footprint, plan.forecast.exposureWeighted, uniqueSorted(forecastEnergies));
-    const r = forecastPerEnergy({ measurement: m, ...conv, ...mc }, uniqueSorted(forecastEnergies), factorSet(forecastFactors, plan.neutrino.region, forecastSurvival));
-    forecast = r.forecast; fPer = r.perEnergy;
+    const ft = factorTables(templates, forecastFactors, plan.neutrino.region, forecastSurvival, weights);
+    forecast = expectedGamma({ measurement: m, ...conv, ...mc, factors: ft.factors, energiesGammaGeV: uniqueSorted(forecastEnergies) });
+    fPer = ft.factors.some((f) => f.kIByEnergy !== undefined || f.survivalByEnergy !== undefined);
   }
   let populations: PopulationSectionResult | null = null;
   if (plan.populations) {
@@ -171,7 +166,7 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   const absorptionStatement = !absorption
     ? 'No absorption correction: gamma rays were taken as emitted (survival 1).'
     : `Pair absorption on the CMB: each template's emission-weighted mean survival probability in the measured region was computed from the template model at every gamma-ray energy used (${rp.shipped ? `shipped templates rebuilt from their specs at Nside ${plan.methods.absorptionNside}` : 'from the templates\' survival maps'}); ` +
-      ((perEnergy || fPer) ? 'the prediction was made once per energy with the survival at that energy.' : 'the survival did not change between the energies used.');
+      ((perEnergy || fPer) ? 'the prediction and the proton fit use, at each gamma-ray energy, the survival at that energy.' : 'the survival did not change between the energies used.');
   return { templates, points, e0GeV, energiesNuGeV, factors, prediction, perEnergy, reference, pointsComparison, survival, factorsAtE0,
     forecastFactors, forecastSurvival, forecast, forecastPerEnergy: fPer, populations, projection, absorptionStatement, notes };
 }

@@ -47,7 +47,9 @@ function readMap(path: string, rp: ResolvedPlan, keyPath: string): SkyMap {
 
 /** Runs the projection comparison (see module comment); null when the plan names no neutrino template. */
 export function projectOnNeutrinoTemplate(a: {
-  rp: ResolvedPlan; templates: RunTemplate[]; factors: FactorResult; factorsAtE0: TemplateFactor[]; points: SpectrumPoints; e0GeV: number;
+  rp: ResolvedPlan; templates: RunTemplate[]; factors: FactorResult; factorsAtE0: TemplateFactor[];
+  /** The prediction's factors (k_I and survival, per energy where known): q_t replaces k_I, the survival tables stay. */
+  factorTables: readonly TemplateFactor[]; points: SpectrumPoints; e0GeV: number;
   base: Omit<PredictInput, 'factors' | 'e0GeV' | 'energiesNuGeV' | 'gamma'>;
 }): TemplateProjectionResult | null {
   const { rp } = a;
@@ -63,9 +65,12 @@ export function projectOnNeutrinoTemplate(a: {
     return { t, f, row };
   });
   const proj = projectionFactors(rows.map(({ t, row }) => ({ name: t.name, map: t.map, plane: row.plane, meanMeasured: row.meanMeasured })), nu, acc, a.e0GeV);
-  const factors = proj.map((p, i) => ({ ...p, kI: rows[i].f.kI }));
+  const factors = proj.map((p, i) => ({ ...p, kI: rows[i].f.kI! })); // factorsAtEnergy always sets kI
   const prediction = predictNeutrinos({ ...a.base, gamma: { kind: 'points', points: a.points }, e0GeV: a.e0GeV, energiesNuGeV: [],
-    factors: rows.map(({ f }, i) => ({ ...f, kI: proj[i].q })), region: 'the neutrino template' });
+    factors: rows.map(({ t }, i) => {
+      const { kIByEnergy: _unused, ...f } = a.factorTables.find((x) => x.template === t.name)!;
+      return { ...f, kI: proj[i].q };
+    }), region: 'the neutrino template' });
   const m = rp.measurement;
   const notes: string[] = [];
   const reference = m.kind !== 'points' ? compareAtReference(prediction, m) : null;

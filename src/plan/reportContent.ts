@@ -3,7 +3,11 @@
  * the assumptions in plain words, the factor, survival and comparison tables,
  * the figures and the provenance. Rendered by render/report.ts.
  */
+import { channelWords, defaultMethods } from '../physics/hadronic/channels.js';
+import { METHOD_SPREAD_NOTE } from '../compare/conversion.js';
 import type { ReportContent, ReportFigure, ReportTable } from '../render/report.js';
+import { describePValue } from '../compare/tension.js';
+import { SUMMARY_DEFINITIONS } from '../compare/report.js';
 import type { RunComputation } from './compute.js';
 import type { ResolvedPlan } from './loadPlan.js';
 import { projectionSentence } from './projectionReport.js';
@@ -35,7 +39,8 @@ export function headline(rp: ResolvedPlan, c: RunComputation): Headline {
     h.display = { ratio: p3(x.ratio.median), ratioLow: p3(x.ratio.p16), ratioHigh: p3(x.ratio.p84), tension: x.tension.sigma.toFixed(2),
       predicted: p3(x.predicted.median), measured: p3(x.measured.median) };
     parts.push(`At ${eTeV} the measured ${flav} neutrino intensity in '${rp.plan.neutrino.region}' is ${h.display.ratio} times the hadronic prediction from the gamma rays` +
-      ` (68 % interval ${h.display.ratioLow} to ${h.display.ratioHigh}), a tension of ${x.tension.lowerBound ? 'at least ' : ''}${h.display.tension} sigma with the measurement ${x.tension.direction} the prediction.`);
+      ` (68 % interval ${h.display.ratioLow} to ${h.display.ratioHigh}), a tension of ${x.tension.lowerBound ? 'at least ' : ''}${h.display.tension} sigma with the measurement ${x.tension.direction} the prediction` +
+      ` (${describePValue(x.tension)}).`);
   } else if (c.pointsComparison) {
     const x = c.pointsComparison;
     h.display = { chi2: p3(x.chi2), tension: x.sigma.toFixed(2) };
@@ -85,17 +90,17 @@ export function reportContent(rp: ResolvedPlan, c: RunComputation, h: Headline, 
   if (h.display.forecast) keyFigures.push({ id: 'kf-forecast', label: `expected E^2 I at ${Number((h.forecastEnergyGeV! / 1e3).toPrecision(4))} TeV`, value: h.display.forecast });
   const assumptions = [
     'The template shape holds in the unseen sky: outside the measured region the diffuse emission is assumed to look like each template; only the shape carries the measurement to the target.',
-    'The emission is hadronic: all of the measured gamma rays come from pion decays in proton-proton collisions; no leptonic or unresolved-source part is subtracted.',
+    `The emission is hadronic: all of the measured gamma rays come from pion decays in ${channelWords(rp.plan.methods.channel)}; no leptonic or unresolved-source part is subtracted.`,
     `Neutrino flavour ratio at Earth ${rp.plan.methods.flavourRatio.join(':')} (e:mu:tau), neutrinos and antineutrinos together.`,
     c.absorptionStatement,
-    `Conversion: ${rp.plan.methods.conversion.map((m) => (m === 'kab' ? 'proton-spectrum fit with the Kelner, Aharonian & Bugayov (2006) yields' : 'the K_pi rule of Ahlers & Halzen (2018)')).join(' and ')}; channel ${rp.plan.methods.channel}.`,
+    `Conversion: ${(rp.plan.methods.conversion ?? defaultMethods(rp.plan.methods.channel)).map((m) => (m === 'kab' ? 'proton-spectrum fit with the Kelner, Aharonian & Bugayov (2006) yields' : 'the K_pi rule of Ahlers & Halzen (2018)')).join(' and ')}; channel ${rp.plan.methods.channel}${(rp.plan.methods.conversion ?? defaultMethods(rp.plan.methods.channel)).includes('kab') ? `. ${METHOD_SPREAD_NOTE}` : ''}.`,
     `Uncertainties: ${rp.plan.monteCarlo.samples} Monte Carlo samples, seed ${rp.plan.monteCarlo.seed}; the template ensemble's spread is read as a model uncertainty.`,
   ];
   const tables: ReportTable[] = [];
   if (comparisonRows.length) {
     const cols = Object.keys(comparisonRows[0]);
     tables.push({ id: 'comparison', caption: `Prediction and comparison at ${Number((c.e0GeV / 1e3).toPrecision(4))} TeV (intensities in GeV^-1 cm^-2 s^-1 sr^-1)`,
-      columns: cols, rows: comparisonRows.map((r) => cols.map((k) => (r[k] === '' ? null : r[k]))) });
+      columns: cols, rows: comparisonRows.map((r) => cols.map((k) => (r[k] === '' ? null : r[k]))), note: SUMMARY_DEFINITIONS.join('. ') + '.' });
   }
   tables.push(factorTable(c, rp));
   if (c.survival) tables.push(survivalTable(c.survival, 'survival'));

@@ -46,7 +46,8 @@ const neutrino = z.strictObject({
 });
 
 const methods = z.strictObject({
-  conversion: z.array(z.enum(['kab', 'kpi'])).min(1).default(['kab', 'kpi']),
+  /** Methods, first primary; default by channel (physics/hadronic/channels.ts): pp [kab, kpi], p-gamma [kpi]. */
+  conversion: z.array(z.enum(['kab', 'kpi'])).min(1).optional(),
   absorption: z.enum(['cmb', 'none']).default('cmb'),
   /** Nside at which survival maps of the shipped ensemble are built (default 32). */
   absorptionNside: pow2.default(32),
@@ -89,7 +90,7 @@ export const planSchema = z.strictObject({
   gamma: gamma.optional(),
   neutrino,
   targets: z.array(name).default([]),
-  methods: methods.default({ conversion: ['kab', 'kpi'], absorption: 'cmb', absorptionNside: 32, channel: 'pp', flavourRatio: [1, 1, 1] }),
+  methods: methods.default({ absorption: 'cmb', absorptionNside: 32, channel: 'pp', flavourRatio: [1, 1, 1] }),
   monteCarlo: monteCarlo.default({ samples: 20000, seed: 1 }),
   forecast: forecast.optional(),
   outputs: outputs.default({ tables: ['csv', 'md', 'json', 'tex'], maps: true, mapWidth: 1200, spectrum: true, report: true }),

@@ -13,6 +13,13 @@
  * linearly in u at u = q. u_1 = 0 and u_n = 1, and with equal weights
  * u_i = (i - 1) / (n - 1), so the definition reduces exactly to type 7.
  * Zero weights are dropped first.
+ *
+ * This is skyspan's one quantile module: the factor summary (summary.ts), the
+ * comparison's central k_I and survival (compare/ensemble.ts) and every Monte
+ * Carlo summary (compare/summary.ts, through {@link quantileSorted}) use it, so
+ * the same values and weights give the same median everywhere. Example: values
+ * [1, 2, 3] with weights [1, 1, 2] have u = [0, 0.4, 1] and median
+ * 2 + (0.5 - 0.4) / 0.6 = 2.1667.
  */
 import { InputError } from '../core/errors.js';
 
@@ -69,6 +76,20 @@ export function quantiles(values: ArrayLike<number>, weights: ArrayLike<number> 
     u[n - 1] = 1;
   }
   return qs.map((q) => interpolate(u, x, q));
+}
+
+/**
+ * Type-7 quantile q (0..1) of values already sorted ascending and finite
+ * (the unweighted case of {@link quantiles} without the checks and the copy,
+ * for large Monte Carlo sample sets): h = (n - 1) q, linear between the order
+ * statistics around h. NaN for an empty array.
+ */
+export function quantileSorted(sorted: ArrayLike<number>, q: number): number {
+  const n = sorted.length;
+  if (n === 0) return NaN;
+  const h = (n - 1) * q;
+  const lo = Math.floor(h), hi = Math.min(n - 1, lo + 1);
+  return sorted[lo] + (h - lo) * (sorted[hi] - sorted[lo]);
 }
 
 function interpolate(u: Float64Array, x: number[], q: number): number {

@@ -40,13 +40,15 @@ describe('neutrino measurement format', () => {
 
 describe('factors input', () => {
   it('short form and the factors table form', () => {
-    expect(parseFactors({ templates: [{ name: 'a', kI: 2 }] }).factors).toEqual([{ template: 'a', kI: 2, survivalMean: undefined, weight: undefined }]);
+    expect(parseFactors({ templates: [{ name: 'a', kI: 2 }] }).factors).toEqual([{ template: 'a', kI: 2, kIByEnergy: undefined, survivalMean: undefined, survivalByEnergy: undefined, weight: undefined }]);
     const rows = [
       { template: 'a', plane: 0, energyGeV: 1000, target: 'sky', kI: 2 }, { template: 'a', plane: 1, energyGeV: 10000, target: 'sky', kI: 2.2 },
       { template: 'b', plane: 0, energyGeV: 1000, target: 'sky', kI: 3 }, { template: 'b', plane: 1, energyGeV: 10000, target: 'sky', kI: 3.3 },
     ];
-    const f = parseFactors({ rows }, 'f.json', { energyGeV: 8000 });
-    expect(f.factors).toEqual([{ template: 'a', kI: 2.2 }, { template: 'b', kI: 3.3 }]);
+    // planes with energies become per-energy tables of k_I (read log-log by compare/ensemble.ts)
+    const f = parseFactors({ rows }, 'f.json');
+    expect(f.factors).toEqual([{ template: 'a', kIByEnergy: { energiesGeV: [1000, 10000], values: [2, 2.2] } },
+      { template: 'b', kIByEnergy: { energiesGeV: [1000, 10000], values: [3, 3.3] } }]);
     expect(() => parseFactors({ rows: [...rows, { ...rows[0], target: 'band' }] }, 'f.json')).toThrow(/2 targets/);
     expect(() => parseFactors({ templates: [{ name: 'a', k: 2 }] }, 'f.json')).toThrow(/f\.json, key templates\[0\]\.k/);
   });

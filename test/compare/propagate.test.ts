@@ -1,7 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { ComputeError } from '../../src/core/errors.js';
 import { checkLinear, linearPropagate, monteCarlo } from '../../src/compare/propagate.js';
-import { percentileSorted, summariseSamples } from '../../src/compare/summary.js';
+import { summariseSamples } from '../../src/compare/summary.js';
+import { quantileSorted as percentileSorted } from '../../src/scaling/quantiles.js';
 
 describe('summaries', () => {
   it('percentiles follow Hyndman & Fan 1996 definition 7 (numpy default)', () => {

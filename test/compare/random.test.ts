@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { Random, splitMix64 } from '../../src/compare/random.js';
 import { splitNormalQuantile, splitNormalMean, splitNormalVariance } from '../../src/compare/splitNormal.js';
-import { percentileSorted } from '../../src/compare/summary.js';
+import { quantileSorted as percentileSorted } from '../../src/scaling/quantiles.js';
 
 describe('xoshiro128** and SplitMix64', () => {
   it('reproduces the xoshiro128** reference vector', () => {

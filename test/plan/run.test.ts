@@ -61,7 +61,10 @@ describe('skyspan run', () => {
     // prediction at E0 and the comparison, straight from the compare layer
     const points = readSpectrumPoints(join(fx.dir, 'gamma-points.csv'));
     const m = readMeasurement(join(fx.dir, 'neutrino.yaml'));
-    const p = predictNeutrinos({ gamma: { kind: 'points', points }, factors: res.factorsAtE0, e0GeV: 1e5, energiesNuGeV: [],
+    // the run reads survival per gamma-ray energy (the proton fit de-absorbs each point at its own energy)
+    const factors = res.factorsAtE0.map((f: { template: string; kI: number }) => ({ template: f.template, kI: f.kI,
+      survivalByEnergy: { energiesGeV: res.survival.energiesGeV, values: res.survival.byTemplate[f.template] } }));
+    const p = predictNeutrinos({ gamma: { kind: 'points', points }, factors, e0GeV: 1e5, energiesNuGeV: [],
       samples: 2000, seed: 5, region: 'sky', methods: ['kab', 'kpi'], channel: 'pp', flavourRatio: [1, 1, 1] });
     const comb = p.components.find((c) => c.name === 'combined')!.atE0;
     const runComb = res.prediction.components.find((c: { name: string }) => c.name === 'combined').atE0;

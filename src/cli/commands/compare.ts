@@ -49,7 +49,7 @@ function action(o: Options, io: CliIo): void {
   if (measurement && measurement.kind !== 'points' && Math.abs(e0GeV - measurement.e0GeV) > 1e-9 * e0GeV) {
     throw new UsageError(`--e0 differs from the measurement's e0 (${measurement.e0GeV} GeV); leave --e0 out to use the measurement's`);
   }
-  const fac = readFactors(o.factors, { target: o.target, energyGeV: 2 * e0GeV });
+  const fac = readFactors(o.factors, { target: o.target });
   const energies = Array.from(points.energyGeV).filter((_, i) => !points.upperLimit[i]).map((e) => e / 2);
   if (measurement?.kind === 'points') energies.push(...measurement.points.map((p) => p.energyGeV));
   const unique = [...new Set(energies)].sort((a, b) => a - b);

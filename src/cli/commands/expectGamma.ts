@@ -28,7 +28,7 @@ function action(o: Options, io: CliIo): void {
   if (o.channel !== 'pp' && o.channel !== 'pgamma') throw new UsageError(`--channel is '${o.channel}', expected pp or pgamma`);
   const samples = parseInteger(o.samples, '--samples'), seed = parseInteger(o.seed, '--seed');
   const m = readMeasurement(o.neutrino);
-  const fac = readFactors(o.factors, { target: o.target, energyGeV: m.kind === 'points' ? undefined : 2 * m.e0GeV });
+  const fac = readFactors(o.factors, { target: o.target });
   const r = expectedGamma({ measurement: m, factors: fac.factors, methods, channel: o.channel as 'pp' | 'pgamma',
     flavourRatio: parseFlavourRatio(o.flavourRatio), samples, seed });
   const header = ['energyGeV', ...r.components.flatMap((c) => [`${c.name}_p16`, `${c.name}_p50`, `${c.name}_p84`]), ...r.methods.map((x) => `method_${x.id}`)];

@@ -13,11 +13,12 @@
  * method choice can enter the uncertainty. Per-flavour values at Earth use the
  * flavour ratio (default 1:1:1).
  */
-import { ComputeError, InputError } from '../../core/errors.js';
+import { ComputeError } from '../../core/errors.js';
 import type { SpectrumPoints } from '../points.js';
 import { KAB_MIN_ENERGY_GEV } from './emissivity.js';
 import { FLAVOUR_RATIO_EARTH, type FlavourRatio } from './flavour.js';
-import { KPI, type PionChannel } from './kpiRule.js';
+import { channelWords, checkMethodChannel } from './channels.js';
+import { KPI, kpiAllFlavourRatio, type PionChannel } from './kpiRule.js';
 import { fitProtonSpectrum, predictFromProtons, protonModelFromInternal, type ProtonFit } from './protonFit.js';
 import { ppEmissivity } from './emissivity.js';
 
@@ -79,13 +80,11 @@ function propagate(fit: ProtonFit, secondary: 'gamma' | 'neutrinoAllFlavour', e:
 export function convertSpectrum(points: SpectrumPoints, options: ConversionOptions = {}): ConversionResult {
   const direction = options.direction ?? 'gammaToNeutrino', method = options.method ?? 'kab2006';
   const channel = options.channel ?? 'pp', ratio = options.flavourRatio ?? FLAVOUR_RATIO_EARTH;
-  if (method === 'kab2006' && channel !== 'pp') {
-    throw new InputError('the KAB 2006 method is for pp collisions only', { keyPath: 'channel' }, 'use --method rule for p-gamma');
-  }
+  checkMethodChannel(method === 'kab2006' ? 'kab' : 'kpi', channel, 'channel');
   const n = points.value.length, toNu = direction === 'gammaToNeutrino';
   const energy = new Float64Array(n);
   for (let i = 0; i < n; i++) energy[i] = toNu ? points.energyGeV[i] / 2 : 2 * points.energyGeV[i];
-  const factor = toNu ? 3 * KPI[channel] : 1 / (3 * KPI[channel]);
+  const factor = toNu ? kpiAllFlavourRatio(channel) : 1 / kpiAllFlavourRatio(channel);
   const rule = points.value.map((v) => v * factor);
   const kab = new Float64Array(n).fill(NaN), kabSigma = new Float64Array(n).fill(NaN);
   const notes: string[] = [];
@@ -123,7 +122,7 @@ export function convertSpectrum(points: SpectrumPoints, options: ConversionOptio
     upperLimit: method === 'kpiRule' ? Uint8Array.from(points.upperLimit) : new Uint8Array(n), perFlavour,
     byMethod: { kab2006: kab, kpiRule: rule }, methodRatio: kab.map((v, i) => v / rule[i]), protonFit: fit, notes,
     assumptions: [
-      'all of the gamma-ray emission is hadronic', 'gamma rays are not absorbed (de-absorb before converting)',
+      `all of the gamma-ray emission is hadronic (${channelWords(channel)})`, 'gamma rays are not absorbed (de-absorb before converting)',
       `flavour ratio at Earth ${ratio.join(':')}`,
       method === 'kab2006' ? 'proton spectrum: ' + (options.cutoff ? 'power law with exponential cutoff' : 'power law')
         : `K_pi = ${KPI[channel]} (${channel})`,

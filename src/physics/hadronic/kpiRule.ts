@@ -29,19 +29,28 @@ function kpiOf(channel: PionChannel): number {
 }
 
 /**
+ * The rule's one number: I_nu,all(E) / I_gamma(2E) = 3 K_pi (6 for pp, 3 for
+ * p-gamma), the same for every spectrum. Every K_pi conversion in skyspan goes
+ * through this function (convert.ts, compare/conversion.ts).
+ */
+export function kpiAllFlavourRatio(channel: PionChannel = 'pp'): number {
+  return 3 * kpiOf(channel);
+}
+
+/**
  * All-flavour neutrino intensity at energyNuGeV from the gamma-ray intensity
  * function (GeV^-1 ... in, same unit out): 3 K_pi I_gamma(2 E_nu).
  */
 export function kpiNeutrinoFromGamma(gamma: (energyGeV: number) => number, energyNuGeV: number, channel: PionChannel = 'pp'): number {
-  return 3 * kpiOf(channel) * gamma(2 * energyNuGeV);
+  return kpiAllFlavourRatio(channel) * gamma(2 * energyNuGeV);
 }
 
 /** The inverse: gamma-ray intensity at energyGammaGeV from the all-flavour neutrino intensity, I_all(E/2) / (3 K_pi). */
 export function kpiGammaFromNeutrino(neutrinoAll: (energyGeV: number) => number, energyGammaGeV: number, channel: PionChannel = 'pp'): number {
-  return neutrinoAll(energyGammaGeV / 2) / (3 * kpiOf(channel));
+  return neutrinoAll(energyGammaGeV / 2) / kpiAllFlavourRatio(channel);
 }
 
 /** Factor 3 K_pi 2^-Gamma between the all-flavour neutrino and gamma-ray intensities at the same energy, for a power law of index Gamma. */
 export function kpiPowerLawFactor(gammaIndex: number, channel: PionChannel = 'pp'): number {
-  return 3 * kpiOf(channel) * Math.pow(2, -gammaIndex);
+  return kpiAllFlavourRatio(channel) * Math.pow(2, -gammaIndex);
 }

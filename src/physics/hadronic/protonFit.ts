@@ -50,9 +50,11 @@ export function protonModelFromInternal(theta: ArrayLike<number>, e0GeV: number)
  */
 export function fitProtonSpectrum(points: SpectrumPoints, options: {
   target?: ProtonFitTarget; cutoff?: boolean; e0GeV?: number; upperLimits?: UpperLimitMode;
+  /** z_c = Phi^-1(confidence) of the upper limits, for upperLimits 'oneSided'. */
+  upperLimitZ?: number;
 } = {}): ProtonFit {
   const target = options.target ?? 'gamma';
-  const lp = toLogPoints(points, options.upperLimits ?? 'penalty');
+  const lp = toLogPoints(points, options.upperLimits ?? 'penalty', options.upperLimitZ);
   const p = options.cutoff ? 3 : 2;
   if (lp.measured <= p) {
     throw new InputError(`${lp.measured} measured points for ${p} proton-spectrum parameters`, { file: points.source },

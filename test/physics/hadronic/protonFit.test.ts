@@ -4,6 +4,7 @@ import { fitProtonSpectrum, predictFromProtons } from '../../../src/physics/hadr
 import { convertSpectrum } from '../../../src/physics/hadronic/convert.js';
 import type { SpectrumPoints } from '../../../src/physics/points.js';
 import type { SpectralModel } from '../../../src/physics/spectrum.js';
+import { logResiduals, toLogPoints } from '../../../src/physics/logResiduals.js';
 
 function gammaPoints(protons: SpectralModel, energies: number[], rel = 0.15): SpectrumPoints {
   const n = energies.length;
@@ -64,6 +65,20 @@ describe('convertSpectrum', () => {
       expect(back.value[i] / pts.value[i]).toBeCloseTo(1, 12);
       expect(back.energyGeV[i]).toBeCloseTo(E[i], 9);
     }
-    expect(() => convertSpectrum(pts, { method: 'kab2006', channel: 'pgamma' })).toThrow(/pp collisions only/);
+    expect(() => convertSpectrum(pts, { method: 'kab2006', channel: 'pgamma' })).toThrow(/applies to pp only, not pgamma/);
+  });
+});
+
+describe('upper limits as one-sided constraints', () => {
+  // z_c = Phi^-1(c): 1.6448536 at 95 %, 1.2815516 at 90 % (scipy.stats.norm.ppf, computed).
+  it('a model at the limit adds z_c^2 to chi^2; the level comes from ulConfidence (default 0.95)', () => {
+    const pts = { energyGeV: Float64Array.of(1e3, 1e4), value: Float64Array.of(1, 2), errLow: Float64Array.of(0.1, 0), errHigh: Float64Array.of(0.1, 0),
+      upperLimit: Uint8Array.of(0, 1) };
+    const out = new Float64Array(2);
+    logResiduals(toLogPoints(pts, 'oneSided', 1.6448536269514722), Float64Array.of(0, Math.log(2)), out);
+    expect(Math.abs(out[1] / 1.6448536269514722 - 1)).toBeLessThan(1e-15);
+    logResiduals(toLogPoints(pts, 'oneSided', 1.2815515655446004), Float64Array.of(0, Math.log(1)), out);
+    expect(Math.abs(out[1] / (1.2815515655446004 / 2) - 1)).toBeLessThan(1e-15); // half the limit: z_c / 2
+    expect(() => toLogPoints(pts, 'oneSided')).toThrow(/needs z_c/);
   });
 });
