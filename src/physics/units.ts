@@ -6,19 +6,26 @@
  * steradian as its own base dimension (mathjs has none). A "ph"/"photons" token
  * (as in "ph cm^-2 s^-1 sr^-1 TeV^-1") is a count and is dropped; "**" reads as "^".
  */
-import { all, create, type Unit } from 'mathjs';
+import type { MathJsInstance, Unit } from 'mathjs';
 import { InputError, type InputLocation } from '../core/errors.js';
+import { lazyRequire } from '../core/lazyRequire.js';
 
-const math = create(all, {});
-math.createUnit('sr', { aliases: ['steradian', 'steradians'] });
-// mathjs defines the electronvolt as 1.602176565e-19 J (CODATA 2010), 4e-8 off the exact SI 2019 value;
-// redefine it (with its prefixes keV..PeV) so that erg and eV convert exactly.
-math.createUnit({ eV: { definition: '1.602176634e-19 J', prefixes: 'short', aliases: ['electronvolt', 'electronvolts'] } },
-  { override: true });
+const mathjs = lazyRequire<typeof import('mathjs')>('mathjs');
 
-const GEV = math.unit(1, 'GeV');
-const PER_ENERGY = math.unit(1, 'GeV^-1 cm^-2 s^-1 sr^-1');
-const ENERGY_WEIGHTED = math.unit(1, 'GeV cm^-2 s^-1 sr^-1');
+/** The private mathjs instance and reference units, made at the first unit read (mathjs loads then). */
+let units: { math: MathJsInstance; GEV: Unit; PER_ENERGY: Unit; ENERGY_WEIGHTED: Unit } | undefined;
+function unitSystem(): NonNullable<typeof units> {
+  if (units) return units;
+  const { all, create } = mathjs();
+  const math = create(all, {});
+  math.createUnit('sr', { aliases: ['steradian', 'steradians'] });
+  // mathjs defines the electronvolt as 1.602176565e-19 J (CODATA 2010), 4e-8 off the exact SI 2019 value;
+  // redefine it (with its prefixes keV..PeV) so that erg and eV convert exactly.
+  math.createUnit({ eV: { definition: '1.602176634e-19 J', prefixes: 'short', aliases: ['electronvolt', 'electronvolts'] } },
+    { override: true });
+  units = { math, GEV: math.unit(1, 'GeV'), PER_ENERGY: math.unit(1, 'GeV^-1 cm^-2 s^-1 sr^-1'), ENERGY_WEIGHTED: math.unit(1, 'GeV cm^-2 s^-1 sr^-1') };
+  return units;
+}
 
 /** Which form an intensity unit has: per energy (I) or energy-squared weighted (E^2 I). */
 export type IntensityForm = 'perEnergy' | 'energyWeighted';
@@ -26,7 +33,7 @@ export type IntensityForm = 'perEnergy' | 'energyWeighted';
 function parse(unitText: string, where: InputLocation, what: string): Unit {
   const text = unitText.trim().replace(/\bph(otons?)?\b\s*/g, '').replace(/\*\*/g, '^');
   try {
-    return math.unit(1, text === '' ? '1' : text) as Unit;
+    return unitSystem().math.unit(1, text === '' ? '1' : text) as Unit;
   } catch (e) {
     throw new InputError(`cannot read the ${what} unit "${unitText}": ${(e as Error).message}`, where,
       'write units like TeV, GeV^-1 cm^-2 s^-1 sr^-1 or erg cm^-2 s^-1 sr^-1');
@@ -36,7 +43,7 @@ function parse(unitText: string, where: InputLocation, what: string): Unit {
 /** Factor that turns one `unitText` of energy into GeV; throws InputError unless it is an energy. */
 export function energyUnitFactor(unitText: string, where: InputLocation = {}): number {
   const u = parse(unitText, where, 'energy');
-  if (!u.equalBase(GEV)) {
+  if (!u.equalBase(unitSystem().GEV)) {
     throw new InputError(`"${unitText}" is not an energy unit`, where, 'use eV, keV, MeV, GeV, TeV, PeV or erg');
   }
   return u.toNumber('GeV');
@@ -57,8 +64,8 @@ export function energyToGeV(value: number, unit: string, where: InputLocation = 
  */
 export function intensityUnit(unitText: string, where: InputLocation = {}): { form: IntensityForm; factor: number } {
   const u = parse(unitText, where, 'intensity');
-  if (u.equalBase(PER_ENERGY)) return { form: 'perEnergy', factor: u.toNumber('GeV^-1 cm^-2 s^-1 sr^-1') };
-  if (u.equalBase(ENERGY_WEIGHTED)) return { form: 'energyWeighted', factor: u.toNumber('GeV cm^-2 s^-1 sr^-1') };
+  if (u.equalBase(unitSystem().PER_ENERGY)) return { form: 'perEnergy', factor: u.toNumber('GeV^-1 cm^-2 s^-1 sr^-1') };
+  if (u.equalBase(unitSystem().ENERGY_WEIGHTED)) return { form: 'energyWeighted', factor: u.toNumber('GeV cm^-2 s^-1 sr^-1') };
   throw new InputError(`"${unitText}" is not an intensity unit`, where,
     'expected energy^-1 area^-1 time^-1 sr^-1 (I) or energy area^-1 time^-1 sr^-1 (E^2 I), e.g. TeV^-1 cm^-2 s^-1 sr^-1');
 }
