@@ -24,7 +24,8 @@ const FITS = benchTemplatePath(NSIDE);
 const PY = '/usr/bin/python3';
 const DISCS: [number, number][] = [[35, 0.5], [52, -1], [78.5, 2], [96, 0]];
 
-const REGIONS = `frame: galactic
+/** The benchmark's region set (also run whole-process by bench/wholeProcess.ts). */
+export const REGIONS = `frame: galactic
 regions:
   survey:
     all:
@@ -69,9 +70,14 @@ function runChild(kind: string): ChildResult {
   return JSON.parse(out) as ChildResult;
 }
 
-function python(): { seconds: number; cpuSeconds: number; readSeconds: number; wallSeconds: number; maxRssBytes: number; kI: number } {
-  const job = { template_fits: FITS, site_lat_deg: 33, zenith_max_deg: 45, box_l_deg: [20, 110], box_b_deg: [-4, 4],
+/** The same job for scripts/factor_reference.py (healpy + numpy), on the template at `fits`. */
+export function referenceJob(fits = FITS): Record<string, unknown> {
+  return { template_fits: fits, site_lat_deg: 33, zenith_max_deg: 45, box_l_deg: [20, 110], box_b_deg: [-4, 4],
     discs_deg: DISCS.map(([l, b]) => [l, b, 1]), strip_b_deg: 4, blank_stride: 0, exposure: false };
+}
+
+function python(): { seconds: number; cpuSeconds: number; readSeconds: number; wallSeconds: number; maxRssBytes: number; kI: number } {
+  const job = referenceJob();
   const t0 = performance.now();
   const out = execFileSync(PY, [join(ROOT, 'scripts/factor_reference.py')],
     { input: JSON.stringify(job), encoding: 'utf8', maxBuffer: 1 << 24 });
@@ -84,6 +90,7 @@ function python(): { seconds: number; cpuSeconds: number; readSeconds: number; w
 export async function benchFactors(): Promise<void> {
   ensureBenchTemplate(NSIDE);
   const mapBytes = 12 * NSIDE * NSIDE * 4;
+  console.log('in-process (diagnosis): times inside one process, without start-up, compilation or provenance hashing; whole-process figures: `npm run bench -- whole`');
   console.log(`template: Nside ${NSIDE}, float32, ${(statSync(FITS).size / 2 ** 20).toFixed(0)} MiB file, ${(mapBytes / 2 ** 20).toFixed(0)} MiB map`);
   const py = python();
   const sum = runChild('sum');

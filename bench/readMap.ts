@@ -59,7 +59,7 @@ function measure(): void {
   const mapBytes = 12 * NSIDE * NSIDE * 4;
   const a = Math.min(a1.ms, a2.ms), b = Math.min(b1.ms, b2.ms);
   if (a1.sum !== b1.sum) console.log(`WARNING: sums differ: ${a1.sum} vs ${b1.sum}`);
-  console.log(`read Nside ${NSIDE} float32 map (${(mapBytes / 1e6).toFixed(0)} MB), best of 2:`);
+  console.log(`in-process (diagnosis): read Nside ${NSIDE} float32 map (${(mapBytes / 1e6).toFixed(0)} MB), best of 2:`);
   console.log(`  skyspan readSkyMap + sum : ${a.toFixed(0)} ms (runs ${a1.ms.toFixed(0)}, ${a2.ms.toFixed(0)})`);
   console.log(`  readFileSync + DataView  : ${b.toFixed(0)} ms (runs ${b1.ms.toFixed(0)}, ${b2.ms.toFixed(0)})`);
   console.log(`  ratio skyspan / raw      : ${(a / b).toFixed(2)} (target <= 1.5)`);

@@ -1,9 +1,12 @@
 /**
  * `npm run bench`: every benchmark, each running its reference in the same run
  * and printing the ratio. Pass names to run a subset: `npm run bench -- factors`.
+ * `whole` (first) times whole processes as users run them; the others are
+ * in-process figures, for diagnosis.
  * Speed and memory are measured here, never asserted in tests.
  */
 const suites: Record<string, () => Promise<unknown>> = {
+  whole: async () => (await import('./wholeProcess.js')).benchWholeProcess(),
   sphere: async () => (await import('./sphere.js')).benchSphere(),
   read: async () => (await import('./readMap.js')).benchReadMap(),
   factors: async () => (await import('./factors.js')).benchFactors(),

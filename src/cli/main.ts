@@ -1,19 +1,22 @@
 /**
  * The command line: a thin commander layer. It parses, calls the library, and
- * prints; every command lives in its own file under commands/ and registers
- * itself in commands/index.ts. `runCli(argv)` returns the exit code
- * (0 ok, 1 failure, 2 usage) and is what the tests call.
+ * prints; every command lives in its own file under commands/ and is listed
+ * in the table of commands/index.ts, which imports only the module of the
+ * command being run. `runCli(argv)` returns the exit code
+ * (0 ok, 1 failure, 2 usage) and is what the tests call; `runAsProgram`
+ * (program.ts) runs it as a program, in a worker thread.
  */
 import { Command, CommanderError } from 'commander';
 import { isSkyspanError } from '../core/errors.js';
-import { existsSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { isMainThread, parentPort, Worker, workerData } from 'node:worker_threads';
-import { finishedOutputs, onTemporaryFileEvent, pendingTemporaryFiles, removePendingTemporaryFiles, removeTemporary,
-  type TemporaryFileEvent } from '../io/atomicWrite.js';
-import { registerCommands } from './commands/index.js';
+import { isMainThread, parentPort, workerData } from 'node:worker_threads';
+import { finishedOutputs, onTemporaryFileEvent, pendingTemporaryFiles, removePendingTemporaryFiles } from '../io/atomicWrite.js';
+import { findCommand, registerCommands } from './commands/index.js';
+import { interruptMessage, runAsProgram, type WorkerMessage } from './program.js';
 import { VERSION } from '../version.js';
 import { fileURLToPath } from 'node:url';
+
+export { interruptMessage, runAsProgram };
 
 /** Where the CLI writes; tests replace these to capture output. */
 export interface CliIo {
@@ -26,8 +29,11 @@ const defaultIo: CliIo = {
   err: (t) => process.stderr.write(t),
 };
 
-/** Builds the commander program with every command registered. */
-export function buildProgram(io: CliIo): Command {
+/**
+ * Builds the commander program for an argument list: the command it names
+ * is imported and registered, every other command is listed by name only.
+ */
+export async function buildProgram(io: CliIo, argv: readonly string[] = []): Promise<Command> {
   const program = new Command();
   program
     .name('skyspan')
@@ -37,7 +43,7 @@ export function buildProgram(io: CliIo): Command {
     .exitOverride()
     .configureOutput({ writeOut: io.out, writeErr: io.err })
     .showHelpAfterError('(run with --help for usage)');
-  registerCommands(program, io);
+  await registerCommands(program, io, findCommand(argv));
   return program;
 }
 
@@ -47,8 +53,8 @@ export function buildProgram(io: CliIo): Command {
  */
 export async function runCli(argv: string[], io: CliIo = defaultIo): Promise<number> {
   const debug = argv.includes('--debug');
-  const program = buildProgram(io);
   try {
+    const program = await buildProgram(io, argv);
     await program.parseAsync(argv, { from: 'user' });
     return typeof process.exitCode === 'number' && process.exitCode !== 0 ? process.exitCode : 0;
   } catch (e) {
@@ -69,17 +75,10 @@ export async function runCli(argv: string[], io: CliIo = defaultIo): Promise<num
   }
 }
 
-/** The line printed on an interrupt: what was finished, what partial file was removed. */
-export function interruptMessage(signal: string, finished: readonly string[], removed: readonly string[]): string {
-  const done = finished.length ? `finished and complete: ${finished.join(', ')}` : 'no output was finished';
-  const gone = removed.length ? `; removed the partial ${removed.length === 1 ? 'file' : 'files'} ${removed.join(', ')}` : '';
-  return `skyspan: interrupted by ${signal}; ${done}${gone}; no partial output was left\n`;
-}
-
 /**
  * Handles SIGINT/SIGTERM for a command running in this thread: deletes the
  * pending temporary files, says what was finished, exits 130/143. A signal
- * is seen only when the thread is idle, so {@link runAsProgram} runs commands
+ * is seen only when the thread is idle, so `runAsProgram` runs commands
  * in a worker thread instead.
  */
 export function installSignalHandlers(io: CliIo): void {
@@ -94,8 +93,6 @@ export function installSignalHandlers(io: CliIo): void {
   process.stdout.on('error', (e: NodeJS.ErrnoException) => { if (e.code === 'EPIPE') process.exit(0); });
 }
 
-type WorkerMessage = { kind: 'out' | 'err'; text: string } | { kind: 'exit'; code: number } | TemporaryFileEvent;
-
 /** Worker-thread body: runs the command and reports output, temporary files and the exit code to the main thread. */
 function runAsWorker(argv: string[]): void {
   const port = parentPort!;
@@ -103,55 +100,6 @@ function runAsWorker(argv: string[]): void {
   onTemporaryFileEvent(send);
   runCli(argv, { out: (text) => send({ kind: 'out', text }), err: (text) => send({ kind: 'err', text }) })
     .then((code) => send({ kind: 'exit', code }));
-}
-
-/**
- * Runs the CLI as a program. The command runs in a worker thread, so this
- * thread stays idle and handles SIGINT/SIGTERM at once even while the command
- * computes or writes synchronously: it deletes the temporary files in flight
- * (outputs are renamed into place only when complete), says which outputs
- * were finished and exits 130 (SIGINT) or 143 (SIGTERM).
- * SKYSPAN_SINGLE_THREAD=1 runs the command in this thread instead.
- */
-export function runAsProgram(argv: string[]): void {
-  if (process.env.SKYSPAN_SINGLE_THREAD === '1') {
-    installSignalHandlers(defaultIo);
-    runCli(argv).then((code) => { process.exitCode = code; });
-    return;
-  }
-  const self = import.meta.url;
-  // Under tsx the worker needs the TypeScript loader registered before it imports this module.
-  const boot = self.endsWith('.ts')
-    ? `import(${JSON.stringify(import.meta.resolve('tsx/esm/api'))}).then((m) => { m.register(); return import(${JSON.stringify(self)}); });`
-    : `import(${JSON.stringify(self)});`;
-  const worker = new Worker(boot, { eval: true, workerData: { skyspanCliArgv: argv } });
-  const inFlight = new Map<string, string>();
-  const finished: string[] = [];
-  let code = 1;
-  worker.on('message', (m: WorkerMessage) => {
-    if ('text' in m) (m.kind === 'out' ? defaultIo.out : defaultIo.err)(m.text);
-    else if (m.kind === 'exit') code = m.code;
-    else if (m.kind === 'start') inFlight.set(m.temporary, m.output);
-    else { inFlight.delete(m.temporary); if (m.kind === 'finish') finished.push(m.output); }
-  });
-  worker.on('error', (e) => {
-    defaultIo.err(`skyspan: internal error: ${e.message} (run with SKYSPAN_SINGLE_THREAD=1 and --debug for the stack)\n`);
-    code = 1;
-  });
-  worker.on('exit', () => { process.exitCode = code; });
-  for (const sig of ['SIGINT', 'SIGTERM'] as const) {
-    process.on(sig, () => {
-      const removed: string[] = [];
-      for (const [tmp, output] of inFlight) {
-        try { removeTemporary(tmp, output); removed.push(tmp); } catch {
-          if (existsSync(output)) finished.push(output); // renamed into place just before the signal
-        }
-      }
-      defaultIo.err(interruptMessage(sig, finished, removed));
-      process.exit(sig === 'SIGINT' ? 130 : 143);
-    });
-  }
-  process.stdout.on('error', (e: NodeJS.ErrnoException) => { if (e.code === 'EPIPE') process.exit(0); });
 }
 
 if (!isMainThread && (workerData as { skyspanCliArgv?: string[] } | null)?.skyspanCliArgv) {

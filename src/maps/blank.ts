@@ -6,7 +6,8 @@
 import { BLANK } from './skyMap.js';
 import type { MapArray } from './skyMap.js';
 
-const BLANK_TOL = 1e-5 * Math.abs(BLANK);
+/** Distance from {@link BLANK} within which a value is blank (1e-5 relative). */
+export const BLANK_TOL = 1e-5 * Math.abs(BLANK);
 
 /**
  * True when v is NaN or within 1e-5 relative of {@link BLANK} (the tolerance

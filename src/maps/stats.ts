@@ -2,7 +2,8 @@
  * Summary statistics of a map plane, blanks excluded and counted.
  */
 import type { MapArray } from './skyMap.js';
-import { isBlank } from './blank.js';
+import { BLANK_TOL } from './blank.js';
+import { BLANK } from './skyMap.js';
 
 /** Minimum, maximum and mean of the non-blank values, with counts. */
 export interface PlaneStats {
@@ -15,6 +16,29 @@ export interface PlaneStats {
   blankCount: number;
 }
 
+/** Pixels per call of the kernel: short calls get the kernel optimised early (one long loop waits for on-stack replacement). */
+const BLOCK = 16384;
+
+/**
+ * Kernel: folds plane[from..to) into st = [min, max, sum, compensation]
+ * (Neumaier 1974, ZAMM 54, 39) and returns the number of valid values.
+ */
+function foldBlock(plane: MapArray, from: number, to: number, st: Float64Array): number {
+  let min = st[0], max = st[1], sum = st[2], comp = st[3], valid = 0;
+  for (let i = from; i < to; i++) {
+    const v = plane[i];
+    if (v !== v || Math.abs(v - BLANK) <= BLANK_TOL) continue; // isBlank, inlined
+    valid++;
+    if (v < min) min = v;
+    if (v > max) max = v;
+    const t = sum + v;
+    comp += Math.abs(sum) >= Math.abs(v) ? (sum - t) + v : (v - t) + sum;
+    sum = t;
+  }
+  st[0] = min; st[1] = max; st[2] = sum; st[3] = comp;
+  return valid;
+}
+
 /**
  * Statistics of one plane. Blank pixels (BLANK sentinel or NaN) are excluded
  * from min, max and mean and counted in blankCount; infinities count as valid.
@@ -23,19 +47,11 @@ export interface PlaneStats {
  * planeStats(new Float64Array([1, 2, NaN])); // { min: 1, max: 2, mean: 1.5, validCount: 2, blankCount: 1 }
  */
 export function planeStats(plane: MapArray): PlaneStats {
-  let min = Infinity, max = -Infinity, sum = 0, comp = 0, valid = 0, blank = 0;
+  const st = new Float64Array([Infinity, -Infinity, 0, 0]);
   const n = plane.length;
-  for (let i = 0; i < n; i++) {
-    const v = plane[i];
-    if (isBlank(v)) { blank++; continue; }
-    valid++;
-    if (v < min) min = v;
-    if (v > max) max = v;
-    const t = sum + v;
-    if (Math.abs(sum) >= Math.abs(v)) comp += (sum - t) + v;
-    else comp += (v - t) + sum;
-    sum = t;
-  }
+  let valid = 0;
+  for (let a = 0; a < n; a += BLOCK) valid += foldBlock(plane, a, Math.min(n, a + BLOCK), st);
+  const blank = n - valid;
   if (valid === 0) return { min: NaN, max: NaN, mean: NaN, validCount: 0, blankCount: blank };
-  return { min, max, mean: (sum + comp) / valid, validCount: valid, blankCount: blank };
+  return { min: st[0], max: st[1], mean: (st[2] + st[3]) / valid, validCount: valid, blankCount: blank };
 }

@@ -5,28 +5,47 @@
  * dimensional analysis go through mathjs, on a private instance that knows the
  * steradian as its own base dimension (mathjs has none). A "ph"/"photons" token
  * (as in "ph cm^-2 s^-1 sr^-1 TeV^-1") is a count and is dropped; "**" reads as "^".
+ * The common units (simpleUnits.ts) are read without mathjs, which is loaded
+ * only for other unit strings and for the errors.
  */
-import { all, create, type Unit } from 'mathjs';
+import type { MathJsInstance, Unit } from 'mathjs';
 import { InputError, type InputLocation } from '../core/errors.js';
+import { lazyRequire } from '../core/lazyRequire.js';
+import { simpleUnit } from './simpleUnits.js';
 
-const math = create(all, {});
-math.createUnit('sr', { aliases: ['steradian', 'steradians'] });
-// mathjs defines the electronvolt as 1.602176565e-19 J (CODATA 2010), 4e-8 off the exact SI 2019 value;
-// redefine it (with its prefixes keV..PeV) so that erg and eV convert exactly.
-math.createUnit({ eV: { definition: '1.602176634e-19 J', prefixes: 'short', aliases: ['electronvolt', 'electronvolts'] } },
-  { override: true });
+const mathjs = lazyRequire<typeof import('mathjs')>('mathjs');
 
-const GEV = math.unit(1, 'GeV');
-const PER_ENERGY = math.unit(1, 'GeV^-1 cm^-2 s^-1 sr^-1');
-const ENERGY_WEIGHTED = math.unit(1, 'GeV cm^-2 s^-1 sr^-1');
+/** The private mathjs instance and reference units, made at the first unit read (mathjs loads then). */
+let units: { math: MathJsInstance; GEV: Unit; PER_ENERGY: Unit; ENERGY_WEIGHTED: Unit } | undefined;
+function unitSystem(): NonNullable<typeof units> {
+  if (units) return units;
+  const { all, create } = mathjs();
+  const math = create(all, {});
+  math.createUnit('sr', { aliases: ['steradian', 'steradians'] });
+  // mathjs defines the electronvolt as 1.602176565e-19 J (CODATA 2010), 4e-8 off the exact SI 2019 value;
+  // redefine it (with its prefixes keV..PeV) so that erg and eV convert exactly.
+  math.createUnit({ eV: { definition: '1.602176634e-19 J', prefixes: 'short', aliases: ['electronvolt', 'electronvolts'] } },
+    { override: true });
+  units = { math, GEV: math.unit(1, 'GeV'), PER_ENERGY: math.unit(1, 'GeV^-1 cm^-2 s^-1 sr^-1'), ENERGY_WEIGHTED: math.unit(1, 'GeV cm^-2 s^-1 sr^-1') };
+  return units;
+}
 
 /** Which form an intensity unit has: per energy (I) or energy-squared weighted (E^2 I). */
 export type IntensityForm = 'perEnergy' | 'energyWeighted';
 
+/** The unit text as read: photon counts dropped, `**` as `^`. */
+const cleaned = (unitText: string): string => unitText.trim().replace(/\bph(otons?)?\b\s*/g, '').replace(/\*\*/g, '^');
+
+/** A simple unit (simpleUnits.ts) of exactly these powers of energy, length, time and sr, or null. */
+function simpleOf(unitText: string, energy: number, length: number, time: number, solidAngle: number): number | null {
+  const u = simpleUnit(cleaned(unitText));
+  return u && u.energy === energy && u.length === length && u.time === time && u.solidAngle === solidAngle ? u.factor : null;
+}
+
 function parse(unitText: string, where: InputLocation, what: string): Unit {
-  const text = unitText.trim().replace(/\bph(otons?)?\b\s*/g, '').replace(/\*\*/g, '^');
+  const text = cleaned(unitText);
   try {
-    return math.unit(1, text === '' ? '1' : text) as Unit;
+    return unitSystem().math.unit(1, text === '' ? '1' : text) as Unit;
   } catch (e) {
     throw new InputError(`cannot read the ${what} unit "${unitText}": ${(e as Error).message}`, where,
       'write units like TeV, GeV^-1 cm^-2 s^-1 sr^-1 or erg cm^-2 s^-1 sr^-1');
@@ -35,8 +54,10 @@ function parse(unitText: string, where: InputLocation, what: string): Unit {
 
 /** Factor that turns one `unitText` of energy into GeV; throws InputError unless it is an energy. */
 export function energyUnitFactor(unitText: string, where: InputLocation = {}): number {
+  const simple = simpleOf(unitText, 1, 0, 0, 0);
+  if (simple !== null) return simple;
   const u = parse(unitText, where, 'energy');
-  if (!u.equalBase(GEV)) {
+  if (!u.equalBase(unitSystem().GEV)) {
     throw new InputError(`"${unitText}" is not an energy unit`, where, 'use eV, keV, MeV, GeV, TeV, PeV or erg');
   }
   return u.toNumber('GeV');
@@ -56,9 +77,13 @@ export function energyToGeV(value: number, unit: string, where: InputLocation = 
  * other dimension (a flux without sr, a bare energy) is an InputError.
  */
 export function intensityUnit(unitText: string, where: InputLocation = {}): { form: IntensityForm; factor: number } {
+  const perEnergy = simpleOf(unitText, -1, -2, -1, -1);
+  if (perEnergy !== null) return { form: 'perEnergy', factor: perEnergy };
+  const energyWeighted = simpleOf(unitText, 1, -2, -1, -1);
+  if (energyWeighted !== null) return { form: 'energyWeighted', factor: energyWeighted };
   const u = parse(unitText, where, 'intensity');
-  if (u.equalBase(PER_ENERGY)) return { form: 'perEnergy', factor: u.toNumber('GeV^-1 cm^-2 s^-1 sr^-1') };
-  if (u.equalBase(ENERGY_WEIGHTED)) return { form: 'energyWeighted', factor: u.toNumber('GeV cm^-2 s^-1 sr^-1') };
+  if (u.equalBase(unitSystem().PER_ENERGY)) return { form: 'perEnergy', factor: u.toNumber('GeV^-1 cm^-2 s^-1 sr^-1') };
+  if (u.equalBase(unitSystem().ENERGY_WEIGHTED)) return { form: 'energyWeighted', factor: u.toNumber('GeV cm^-2 s^-1 sr^-1') };
   throw new InputError(`"${unitText}" is not an intensity unit`, where,
     'expected energy^-1 area^-1 time^-1 sr^-1 (I) or energy area^-1 time^-1 sr^-1 (E^2 I), e.g. TeV^-1 cm^-2 s^-1 sr^-1');
 }

@@ -3,8 +3,12 @@
  * expression is parsed and checked once (syntax, variables), compiled, and then
  * only tabulated on the model grid: it is never evaluated in the hot loop.
  */
-import { parse, type MathNode } from 'mathjs';
+import type { MathNode } from 'mathjs';
 import { InputError, type InputLocation } from '../core/errors.js';
+import { lazyRequire } from '../core/lazyRequire.js';
+
+/** mathjs, loaded at the first expression: reading a spec without one does not pay for it. */
+const mathjs = lazyRequire<typeof import('mathjs')>('mathjs');
 
 /** Variables an expression may use: R and z in kpc. */
 export const EXPRESSION_VARIABLES = ['R', 'z'] as const;
@@ -24,7 +28,7 @@ export interface UserExpression {
 export function compileExpression(text: string, where: InputLocation): UserExpression {
   let node: MathNode;
   try {
-    node = parse(text);
+    node = mathjs().parse(text);
   } catch (e) {
     throw new InputError(`expression '${text}' has a syntax error: ${(e as Error).message}`, where,
       'write a mathjs expression in R and z (kpc), e.g. "exp(-R/3) * exp(-abs(z)/0.1)"');

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, writeFileSync, existsSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.js';
 import { readSkyMap } from '../../src/io/mapFile.js';
 import { survivalPathFor } from '../../src/templates/writeTemplate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 function capture() {
   const out: string[] = [], err: string[] = [];
@@ -12,7 +12,7 @@ function capture() {
 }
 
 describe('skyspan build', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'skyspan-build-'));
+  const dir = tempDir('skyspan-build-');
   const spec = join(dir, 'slab.yaml');
   writeFileSync(spec, 'name: slab\ngas: [{component: exponentialSlab, densityCm3: 1, scaleHeightKpc: 0.1}]\ncosmicRays: {distribution: constant}\nintegration: {maxDistanceKpc: 5}\n');
 

@@ -1,13 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 // Invented scenario: a power-law gamma-ray spectrum of index 2.7 measured in region A,
 // three invented templates, an invented neutrino normalisation.
 function fixtures(): { dir: string; gamma: string; factors: string; nu: string; nuPoints: string } {
-  const dir = mkdtempSync(join(tmpdir(), 'skyspan-compare-'));
+  const dir = tempDir('skyspan-compare-');
   const gamma = join(dir, 'gamma.csv'), factors = join(dir, 'factors.json'), nu = join(dir, 'nu.yaml'), nuPoints = join(dir, 'nu-points.yaml');
   const rows = [1, 3, 10, 30, 100].map((eTeV) => {
     const v = 1e-12 * Math.pow(eTeV, -2.7); // TeV^-1 cm^-2 s^-1 sr^-1 (invented)

@@ -1,8 +1,8 @@
-import { mkdtempSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../src/cli/main.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 function capture(): CliIo & { stdout: string; stderr: string } {
   const io = { stdout: '', stderr: '', out: (t: string) => { io.stdout += t; }, err: (t: string) => { io.stderr += t; } };
@@ -14,7 +14,7 @@ const POINTS = '# invented example points\n# energy_unit: TeV\n# value_unit: TeV
   + [1, 3, 10, 30, 100, 300].map((e) => { const v = 1e-12 * Math.pow(e, -2.7); return `${e},${v},${0.1 * v},${0.12 * v},0`; }).join('\n') + '\n';
 
 describe('skyspan convert-spectrum', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'skyspan-conv-'));
+  const dir = tempDir('skyspan-conv-');
   const file = join(dir, 'points.csv');
   writeFileSync(file, POINTS);
 

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 describe('skyspan expect-gamma', () => {
   it('writes the expected gamma-ray table; K_pi column follows (P / k_I) I_nu,all(E/2) / 6 (Ahlers & Halzen 2018, inverted)', async () => {
-    const dir = mkdtempSync(join(tmpdir(), 'skyspan-expect-'));
+    const dir = tempDir('skyspan-expect-');
     const nu = join(dir, 'nu.yaml'), factors = join(dir, 'f.json');
     // invented measurement and factors
     writeFileSync(nu, 'kind: normalisation\nenergyUnit: GeV\nvalueUnit: GeV^-1 cm^-2 s^-1 sr^-1\ne0: 10000\nnorm: 2.0e-15\nerr: 0.5e-15\nindex: 2.5\nenergyRange: [1000, 100000]\n');

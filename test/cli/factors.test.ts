@@ -5,21 +5,21 @@
  * command's own contract (common practice, no source) and SHA-256 of the
  * inputs recomputed with node:crypto.
  */
-import { mkdtempSync, mkdirSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync, existsSync } from 'node:fs';
 import { createHash } from 'node:crypto';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/main.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
 import { analyticTemplate } from '../scaling/fixtures.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 function capture() {
   const out: string[] = [], err: string[] = [];
   return { io: { out: (t: string) => { out.push(t); }, err: (t: string) => { err.push(t); } }, out, err };
 }
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-factors-'));
+const dir = tempDir('skyspan-factors-');
 const regions = join(dir, 'regions.yaml');
 writeFileSync(regions, `frame: galactic
 regions:

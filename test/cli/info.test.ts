@@ -5,16 +5,16 @@
  * with exit code 1 for bad input, 2 for a bad command line.
  */
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
 import { bintableHdu, primaryHdu, headerBytes } from '../../src/io/fits/writer.js';
 import { BLANK } from '../../src/maps/skyMap.js';
 import { testMap } from '../io/fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-info-'));
+const dir = tempDir('skyspan-info-');
 
 async function cli(argv: string[]) {
   let out = '', err = '';

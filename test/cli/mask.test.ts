@@ -1,11 +1,11 @@
-import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../src/cli/main.js';
 import { readMapFile } from '../../src/io/mapFile.js';
 import { parseRegionDocument } from '../../src/regions/document.js';
 import { evaluateRegion } from '../../src/regions/evaluate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 function capture(): CliIo & { stdout: string; stderr: string } {
   const io = { stdout: '', stderr: '', out: (t: string) => { io.stdout += t; }, err: (t: string) => { io.stderr += t; } };
@@ -22,7 +22,7 @@ regions:
 `;
 
 describe('skyspan mask (mask writing through writeMapFile; values checked against evaluateRegion)', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'skyspan-mask-'));
+  const dir = tempDir('skyspan-mask-');
   const file = join(dir, 'regions.yaml');
   writeFileSync(file, REGIONS);
 

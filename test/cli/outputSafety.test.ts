@@ -9,14 +9,14 @@
  * never opened for writing); common practice, no source.
  */
 import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, statSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/main.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
 import { testMap } from '../io/fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const root = mkdtempSync(join(tmpdir(), 'skyspan-output-safety-'));
+const root = tempDir('skyspan-output-safety-');
 const inputs = join(root, 'inputs');
 mkdirSync(inputs);
 const mapIn = join(inputs, 'map.fits');

@@ -5,16 +5,15 @@
  * errors for the command-line rules.
  */
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { runCli } from '../../src/cli/main.js';
 import { readMapFile, readSkyMap, writeMapFile } from '../../src/io/mapFile.js';
 import { BLANK } from '../../src/maps/skyMap.js';
 import { requirePython, runPython } from '../helpers/python.js';
 import { testMap } from '../io/fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-remap-'));
+const dir = tempDir('skyspan-remap-');
 const have = requirePython();
 
 async function cli(argv: string[]) {

@@ -2,11 +2,11 @@
  * `skyspan sources` through runCli: tables, JSON, SVG, refusal to overwrite,
  * bad input as one line with exit 1 (project rules, no outside source).
  */
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli, type CliIo } from '../../src/cli/main.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 function capture(): CliIo & { stdout: string; stderr: string } {
   const io = { stdout: '', stderr: '', out: (t: string) => { io.stdout += t; }, err: (t: string) => { io.stderr += t; } };
@@ -36,7 +36,7 @@ const REGIONS = `regions:
 `;
 
 describe('skyspan sources', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'skyspan-sources-'));
+  const dir = tempDir('skyspan-sources-');
   const sec = join(dir, 'pop.yaml'), reg = join(dir, 'regions.yaml');
   writeFileSync(sec, SECTION);
   writeFileSync(reg, REGIONS);

@@ -5,16 +5,16 @@
  * Gorski et al. 2005, ApJ 622, 759, for NSIDE and the pixel count).
  */
 import { describe, expect, it } from 'vitest';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
 import { InputError } from '../../src/core/errors.js';
 import { readMapFile, writeMapFile, describeFitsFile } from '../../src/io/mapFile.js';
 import { bintableHdu, primaryHdu } from '../../src/io/fits/writer.js';
 import { findCard, read, removeEnd, setCard, testMap, write } from './fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-bad-'));
+const dir = tempDir('skyspan-bad-');
 const good = join(dir, 'good.fits');
 writeMapFile(good, testMap(16), {}); // 3 rows of 1024E
 const goodExplicit = join(dir, 'goodx.fits');

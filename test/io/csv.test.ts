@@ -4,14 +4,14 @@
  * test vector "abc", from memory, cross-checked with /usr/bin/sha256sum when present).
  */
 import { describe, expect, it } from 'vitest';
-import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { existsSync, writeFileSync } from 'node:fs';
 import { execFileSync } from 'node:child_process';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { parseCsv, readCsv } from '../../src/io/csv.js';
 import { sha256File } from '../../src/io/hash.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-csv-'));
+const dir = tempDir('skyspan-csv-');
 
 describe('parseCsv', () => {
   it('reads header, rows, quoted fields and file line numbers', () => {

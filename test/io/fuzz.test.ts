@@ -16,13 +16,13 @@ import { InputError } from '../../src/core/errors.js';
 import { readMapBytes } from '../../src/io/mapFile.js';
 import { bintableHdu, primaryHdu } from '../../src/io/fits/writer.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { findCard, removeEnd, setCard, testMap } from './fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 const RUNS = Number(process.env.SKYSPAN_FUZZ_RUNS ?? 10_000);
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-fuzz-'));
+const dir = tempDir('skyspan-fuzz-');
 
 function written(name: string, ...args: Parameters<typeof writeMapFile>[1 | 2][]): Uint8Array {
   const p = join(dir, name);

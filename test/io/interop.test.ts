@@ -6,17 +6,16 @@
  * ordering and frame must agree exactly.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { requirePython, runPython } from '../helpers/python.js';
 import { readMapFile, writeMapFile } from '../../src/io/mapFile.js';
 import { BLANK, type MapArray, type SkyMap } from '../../src/maps/skyMap.js';
 import type { FrameName } from '../../src/sphere/frames.js';
 import type { Ordering } from '../../src/sphere/nside.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 const have = requirePython();
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-interop-'));
+const dir = tempDir('skyspan-interop-');
 
 function plane(nside: number, k: number, f64: boolean, blankEvery = 0): MapArray {
   const n = 12 * nside * nside;

@@ -6,15 +6,15 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { readMapFile, readSkyMap, writeMapFile } from '../../src/io/mapFile.js';
 import { bintableHdu, primaryHdu } from '../../src/io/fits/writer.js';
 import { BLANK } from '../../src/maps/skyMap.js';
 import { testMap } from './fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-map-'));
+const dir = tempDir('skyspan-map-');
 let n = 0;
 const path = (ext = '.fits') => join(dir, `m${n++}${ext}`);
 

@@ -5,14 +5,14 @@
  * boxes and a source mask, the demo's invented gamma-ray points, and an
  * invented neutrino normalisation.
  */
-import { copyFileSync, mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { copyFileSync, mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { createSkyMap } from '../../src/maps/create.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
 import { ringTable } from '../../src/sphere/ringTable.js';
 import { nside2npix } from '../../src/sphere/nside.js';
 import { survivalPathFor } from '../../src/templates/writeTemplate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 export const GAMMA_ENERGIES_GEV = [20e3, 50e3, 150e3, 200e3, 400e3];
 
@@ -31,7 +31,7 @@ function shape(nside: number, widthRad: number, lonWeight: number): Float64Array
 
 /** Writes the fixture and returns its folder and plan path. `extra` is appended to the plan text. */
 export function makePlanFixture(opts: { absorption?: 'cmb' | 'none'; samples?: number; extra?: string } = {}): { dir: string; plan: string; templates: string } {
-  const dir = mkdtempSync(join(tmpdir(), 'skyspan-plan-'));
+  const dir = tempDir('skyspan-plan-');
   const tdir = join(dir, 'templates');
   mkdirSync(tdir);
   const nside = 32;

@@ -3,8 +3,6 @@
  * intensity in any region, exposure-weighted or not (isotropy, common
  * knowledge); a threshold map read from a FITS file resolves as the map says.
  */
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { Random } from '../../src/compare/random.js';
@@ -17,6 +15,7 @@ import { drawRealisation, populationSampler } from '../../src/populations/realis
 import { regionWeightsOfSources } from '../../src/populations/sourcePixels.js';
 import { runPopulationSection } from '../../src/populations/runSection.js';
 import { ballModel } from './fixtures.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 const doc = parseRegionDocument(`regions:
   site:
@@ -42,7 +41,7 @@ describe('region weights of sources', () => {
   });
 
   it('reads a HEALPix threshold map: a survey that only sees the northern Galactic sky resolves nothing in the south', () => {
-    const dir = mkdtempSync(join(tmpdir(), 'skyspan-pop-map-'));
+    const dir = tempDir('skyspan-pop-map-');
     const nside = 8, npix = 768, plane = new Float32Array(npix);
     for (let p = 0; p < npix; p++) plane[p] = p < npix / 2 ? 1e-12 : 0; // RING: the first half is the northern hemisphere
     writeMapFile(join(dir, 'threshold.fits'), createSkyMap({ nside, ordering: 'RING', frame: 'galactic', planes: [plane] }));

@@ -1,10 +1,10 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { InputError } from '../../src/core/errors.js';
 import { parseRegionDocument } from '../../src/regions/document.js';
 import { evaluateRegion } from '../../src/regions/evaluate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 /** The one-line message of the InputError that parsing (and evaluating region a) throws. */
 function failure(text: string, file = 'r.yaml'): string {
@@ -106,7 +106,7 @@ describe('region files: every bad input is one line naming the key path', () => 
   });
 
   describe('catalogues', () => {
-    const dir = mkdtempSync(join(tmpdir(), 'skyspan-cat-'));
+    const dir = tempDir('skyspan-cat-');
     const rf = join(dir, 'r.yaml');
     writeFileSync(join(dir, 'c.csv'), 'name,lon,lat,frame\n# invented sources\nx,10,0,galactic\ny,10,91,galactic\n');
     writeFileSync(join(dir, 'd.csv'), 'name,lon,lat,frame,radius\nx,10,0,galactic,-1\n');

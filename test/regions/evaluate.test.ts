@@ -1,5 +1,4 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -15,6 +14,7 @@ import { convertLonLat } from '../../src/sphere/frameRotation.js';
 import { createSkyMap } from '../../src/maps/create.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
 import type { RegionDocument } from '../../src/regions/types.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 const d = (x: number): number => (x * Math.PI) / 180;
 
@@ -120,7 +120,7 @@ describe('exposure per pixel', () => {
   });
 
   it('from an exposure map file: a map of the Sommers exposure gives back the same weights (bilinear, Nside 64 map)', () => {
-    const dir = mkdtempSync(join(tmpdir(), 'skyspan-expmap-'));
+    const dir = tempDir('skyspan-expmap-');
     const nside = 64, t = ringTable(nside);
     const plane = new Float32Array(12 * nside * nside);
     for (let r = 0; r < t.count; r++) for (let j = 0; j < t.length[r]; j++) {
@@ -152,7 +152,7 @@ describe('exposure per pixel', () => {
 
 describe('catalogue masks with growth by the angular resolution (r = sqrt(r_src^2 + (k psf)^2), common practice)', () => {
   it('an equatorial catalogue source gives the same pixels as a disc of the grown radius at its Galactic position', () => {
-    const dir = mkdtempSync(join(tmpdir(), 'skyspan-cat-'));
+    const dir = tempDir('skyspan-cat-');
     // invented sources: one with its own radius, one with the default
     writeFileSync(join(dir, 'cat.csv'), 'name,ra,dec,radius\nx,120,-30,1\ny,200,10,\n');
     const doc = parseRegionDocument(`regions:

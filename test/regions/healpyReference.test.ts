@@ -1,10 +1,10 @@
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseRegionDocument } from '../../src/regions/document.js';
 import { evaluateRegion } from '../../src/regions/evaluate.js';
 import { requirePython, runPython } from '../helpers/python.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 // Invented sources for the test (not a real catalogue). src-c and src-d are
 // given in equatorial coordinates (near l = 80, b = 0.7 and l = 48, b = -1).
@@ -29,7 +29,7 @@ regions:
 `;
 
 describe('centre mode against healpy (pixel centres, Rotator, query_disc inclusive=False; scripts/region_reference.py)', () => {
-  const dir = mkdtempSync(join(tmpdir(), 'skyspan-regions-'));
+  const dir = tempDir('skyspan-regions-');
   const csv = join(dir, 'sources.csv');
   writeFileSync(csv, CATALOGUE);
   const file = join(dir, 'regions.yaml');

@@ -6,14 +6,14 @@
  * the output folder (test/report/output/). Under CI=true a missing Chromium
  * fails the test; otherwise it is skipped.
  */
-import { existsSync, mkdirSync, mkdtempSync, readFileSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { describe, expect, it } from 'vitest';
 import { chromium } from 'playwright-core';
 import { runPlan } from '../../src/plan/runPlan.js';
 import { makePlanFixture } from '../plan/fixture.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const have = existsSync(CHROMIUM);
@@ -26,7 +26,7 @@ describe.skipIf(!have)('report in headless Chromium', () => {
     const run = await runPlan(fx.plan, { outDir: out, cache: false });
     const results = JSON.parse(readFileSync(run.results, 'utf8'));
     // a fresh profile folder per run (playwright passes it as --user-data-dir)
-    const browser = await chromium.launchPersistentContext(mkdtempSync(join(tmpdir(), 'skyspan-chromium-')), {
+    const browser = await chromium.launchPersistentContext(tempDir('skyspan-chromium-'), {
       executablePath: CHROMIUM, headless: true, viewport: { width: 1100, height: 900 },
       args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking',
         '--disable-component-update', '--disable-sync'],

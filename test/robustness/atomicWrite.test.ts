@@ -6,8 +6,7 @@
  * Expectations: the atomic-write contract (temporary file in the same folder,
  * rename when complete); common practice, no source.
  */
-import { existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync, writeSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readdirSync, readFileSync, writeFileSync, writeSync } from 'node:fs';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { InputError } from '../../src/core/errors.js';
@@ -16,8 +15,9 @@ import {
 } from '../../src/io/atomicWrite.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
 import { testMap } from '../io/fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-atomic-'));
+const dir = tempDir('skyspan-atomic-');
 const temporaries = () => readdirSync(dir).filter((f) => f.endsWith('.tmp'));
 
 /** A writer that writes `okChunks` chunks, then half of the next and fails with `code`. */

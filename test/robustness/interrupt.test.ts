@@ -9,15 +9,15 @@
  */
 import { spawn } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, readlinkSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { interruptMessage } from '../../src/cli/main.js';
 import { readSkyMap, writeMapFile } from '../../src/io/mapFile.js';
 import { testMap } from '../io/fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 const ROOT = resolve(__dirname, '../..');
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-interrupt-'));
+const dir = tempDir('skyspan-interrupt-');
 const NSIDE = 1024; // 12.6 M pixels, 100 MB as float64: the write takes long enough to be caught
 const input = join(dir, 'big.fits');
 writeMapFile(input, testMap(NSIDE, { f64: true, frame: 'galactic' }));

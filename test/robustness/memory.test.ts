@@ -5,8 +5,8 @@
  * environment variable so that small maps trigger the refusal.
  * Wording expectations: common practice, no source.
  */
-import { existsSync, mkdtempSync, statSync, writeFileSync } from 'node:fs';
-import { freemem, tmpdir } from 'node:os';
+import { existsSync, statSync, writeFileSync } from 'node:fs';
+import { freemem } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/main.js';
@@ -14,8 +14,9 @@ import { ComputeError, InputError } from '../../src/core/errors.js';
 import { assertFits, availableMemoryBytes, estimateMapBytes, formatBytes, MEMORY_LIMIT_ENV } from '../../src/core/memory.js';
 import { readMapFile, writeMapFile } from '../../src/io/mapFile.js';
 import { testMap } from '../io/fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-memory-'));
+const dir = tempDir('skyspan-memory-');
 const twoColumns = join(dir, 'two.fits');
 writeMapFile(twoColumns, [testMap(16, { column: 'A', f64: true }), testMap(16, { column: 'B', f64: true, k: 1 })], { dtype: 'float64' });
 const single = join(dir, 'single.fits');

@@ -8,16 +8,16 @@
  * Expectations: the error contract of src/core/errors.ts; common practice,
  * no source.
  */
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { stringify } from 'yaml';
 import { InputError } from '../../src/core/errors.js';
 import { loadPlan } from '../../src/plan/loadPlan.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-plan-input-'));
+const dir = tempDir('skyspan-plan-input-');
 const planFile = join(dir, 'plan.yaml');
 // An invented scenario: a gamma-ray survey box, a neutrino measurement of the plane (numbers invented).
 const VALID = {

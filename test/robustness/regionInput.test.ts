@@ -9,8 +9,7 @@
  * language's own ranges (latitudes -90..90, radii 0..180 deg); common
  * practice, no source.
  */
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -19,8 +18,9 @@ import { runCli } from '../../src/cli/main.js';
 import { InputError } from '../../src/core/errors.js';
 import { parseRegionDocument } from '../../src/regions/document.js';
 import { evaluateRegion } from '../../src/regions/evaluate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-region-input-'));
+const dir = tempDir('skyspan-region-input-');
 const regionFile = join(dir, 'regions.yaml');
 
 /** Parses `text` as region file `regionFile` and evaluates `name` (default: every region) at Nside 4. */

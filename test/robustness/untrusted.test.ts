@@ -10,7 +10,6 @@
  * error contract (common practice, no source).
  */
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCli } from '../../src/cli/main.js';
@@ -21,9 +20,10 @@ import { parseRegionDocument } from '../../src/regions/document.js';
 import { evaluateRegion } from '../../src/regions/evaluate.js';
 import { BLANK } from '../../src/maps/skyMap.js';
 import { testMap } from '../io/fitsMutate.js';
+import { tempDir } from '../helpers/tempDir.js';
 
 const NSIDE = 16;
-const root = mkdtempSync(join(tmpdir(), 'skyspan-untrusted-'));
+const root = tempDir('skyspan-untrusted-');
 const regions = join(root, 'regions.yaml');
 writeFileSync(regions, `frame: galactic
 regions:

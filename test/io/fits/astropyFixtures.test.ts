@@ -6,15 +6,14 @@
  * HIERARCH card and a D exponent; an ASCII table; a vector-per-pixel cube.
  */
 import { describe, expect, it, beforeAll } from 'vitest';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { requirePython, runPython } from '../../helpers/python.js';
 import { loadFitsBytes, walkHdus, readImage, tableLayout, readColumn, readTextColumn, findColumn } from '../../../src/io/fits/index.js';
 import { readMapFile, describeFitsFile } from '../../../src/io/mapFile.js';
+import { tempDir } from '../../helpers/tempDir.js';
 
 const have = requirePython();
-const dir = mkdtempSync(join(tmpdir(), 'skyspan-astropy-'));
+const dir = tempDir('skyspan-astropy-');
 let ref: Record<string, any>;
 
 const nul = (a: ArrayLike<number>): (number | null)[] => Array.from(a, (v) => (Number.isFinite(v) ? v : null));
