@@ -56,3 +56,19 @@ describe('parseSpectrumPoints', () => {
       .toThrow(/row 4: "TeV\^-1 cm\^-2 s\^-1" is not an intensity unit/);
   });
 });
+
+// Issue 16: a unit with a number in it lost the number (results 1e8 too high), exit 0.
+// Expected values from the unit definitions (SI prefixes; common practice, no source).
+describe('parseSpectrumPoints with factored units', () => {
+  it('"# value_unit: 1e-8 GeV cm^-2 s^-1 sr^-1" and "# energy_unit: 1000 GeV" keep their factors', () => {
+    const p = parseSpectrumPoints('# energy_unit: 1000 GeV\n# value_unit: 1e-8 GeV cm^-2 s^-1 sr^-1\nenergy,value,err\n10,4,1\n', 'f.csv');
+    // E = 10 x 1000 GeV = 1e4 GeV; E^2 I = 4e-8 GeV cm^-2 s^-1 sr^-1 -> I = 4e-8 / 1e8 = 4e-16 GeV^-1 cm^-2 s^-1 sr^-1
+    expect(Math.abs(p.energyGeV[0] / 1e4 - 1)).toBeLessThan(1e-14);
+    expect(Math.abs(p.value[0] / 4e-16 - 1)).toBeLessThan(1e-14);
+    expect(Math.abs(p.errLow[0] / 1e-16 - 1)).toBeLessThan(1e-14);
+  });
+  it('refuses a zero factor in one line naming the file and row', () => {
+    expect(() => parseSpectrumPoints('# energy_unit: 0 GeV\n# value_unit: GeV^-1 cm^-2 s^-1 sr^-1\nenergy,value,err\n10,4,1\n', 'f.csv'))
+      .toThrow(/^f\.csv, row 4: the energy unit "0 GeV" has the factor 0/);
+  });
+});
