@@ -10,7 +10,7 @@
  *    `target`), and per template the plane whose energy is nearest, in log energy, to
  *    `energyGeV` (plane 0 when the planes carry no energy).
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../io/inputFile.js';
 import { InputError } from '../core/errors.js';
 import type { TemplateFactor } from './ensemble.js';
 
@@ -72,8 +72,9 @@ export function parseFactors(doc: unknown, file = '<factors>', opts: { target?: 
 /** Reads a factors JSON file (see the module comment). */
 export function readFactors(path: string, opts: { target?: string; energyGeV?: number } = {}): FactorsFile {
   let doc: unknown;
-  try { doc = JSON.parse(readFileSync(path, 'utf8')); } catch (e) {
-    throw new InputError(e instanceof SyntaxError ? `not valid JSON: ${e.message}` : `cannot read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path });
+  const text = readInputText(path);
+  try { doc = JSON.parse(text); } catch (e) {
+    throw new InputError(`not valid JSON: ${(e as Error).message}`, { file: path });
   }
   return parseFactors(doc, path, opts);
 }

@@ -24,7 +24,7 @@
  * read as a split normal (splitNormal.ts). Bad input throws InputError with the
  * key path.
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../io/inputFile.js';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
 import { InputError } from '../core/errors.js';
@@ -110,10 +110,7 @@ export function parseMeasurement(doc: unknown, file?: string): NeutrinoMeasureme
 
 /** Reads a measurement YAML (or JSON) file. */
 export function readMeasurement(path: string): NeutrinoMeasurement {
-  let text: string;
-  try { text = readFileSync(path, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path });
-  }
+  const text = readInputText(path);
   let doc: unknown;
   try { doc = parseYaml(text); } catch (e) {
     throw new InputError(`not valid YAML: ${(e as Error).message.split('\n')[0]}`, { file: path });

@@ -72,8 +72,13 @@ export function assertFits(neededBytes: number, what: string, hint: string, limi
   const limit = availableMemoryBytes(limitBytes);
   if (limit.source !== 'system') neededBytes += heldBytes;
   if (neededBytes > limit.bytes) {
-    const from = limit.source === 'environment' ? ` (limit set by ${MEMORY_LIMIT_ENV})`
-      : limit.source === 'option' ? ' (limit given as an option)' : ' the system reports free';
-    throw new ComputeError(`${what} needs about ${formatBytes(neededBytes)}, more than the ${formatBytes(limit.bytes)}${from}; ${hint}`);
+    throw new ComputeError(`${what} needs about ${formatBytes(neededBytes)}, more than the ${describeLimit(limit)}; ${hint}`);
   }
+}
+
+/** "200.0 MiB (limit set by SKYSPAN_MEMORY_LIMIT_BYTES)" and the like, for messages. */
+export function describeLimit(limit: MemoryLimit): string {
+  const from = limit.source === 'environment' ? ` (limit set by ${MEMORY_LIMIT_ENV})`
+    : limit.source === 'option' ? ' (limit given as an option)' : ' the system reports free';
+  return `${formatBytes(limit.bytes)}${from}`;
 }

@@ -146,7 +146,7 @@ describe('results that cannot be trusted are refused (common practice, no source
   });
   it('refuses before allocating when the memory estimate exceeds the limit, naming it and the way out', () => {
     expect(() => run([{ name: 't', map: analyticTemplate(NSIDE) }], { memoryLimitBytes: 1000 }))
-      .toThrow(/needs about 192 KiB, more than the 1 KiB available; lower the working Nside \(e.g. --nside 16\)/);
+      .toThrow(/at Nside 32 needs about 192 KiB, more than the 1 KiB \(limit given as an option\); lower the working Nside \(e.g. --nside 16\)/);
   });
 });
 
