@@ -76,6 +76,15 @@ export function assertFits(neededBytes: number, what: string, hint: string, limi
   }
 }
 
+/**
+ * {@link assertFits} for a job whose size is set by a working Nside: the hint
+ * is to halve it (`--nside N/2`) or free memory.
+ */
+export function assertNsideFits(neededBytes: number, what: string, nside: number, limitBytes?: number): void {
+  assertFits(neededBytes, `${what} at Nside ${nside}`,
+    `lower the working Nside${nside > 1 ? ` (e.g. --nside ${nside / 2})` : ''} or free memory`, limitBytes);
+}
+
 /** "200.0 MiB (limit set by SKYSPAN_MEMORY_LIMIT_BYTES)" and the like, for messages. */
 export function describeLimit(limit: MemoryLimit): string {
   const from = limit.source === 'environment' ? ` (limit set by ${MEMORY_LIMIT_ENV})`

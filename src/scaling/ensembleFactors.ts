@@ -17,7 +17,7 @@ import { toRegionPixels, wholeSkyPixels, type RegionPixels, type RegionWeightsLi
 import { regionSums, wholeSkySums, SUMS_LENGTH, S } from './regionSums.js';
 import { factorRow, type FactorRow } from './factorRow.js';
 import { summarise, type SummaryRow } from './summary.js';
-import { assertFits, estimateMapBytes } from '../core/memory.js';
+import { assertNsideFits, estimateMapBytes } from '../core/memory.js';
 
 /** The statement every factor table carries. */
 export const EXTRAPOLATION_ASSUMPTION =
@@ -108,8 +108,7 @@ export function computeFactorsWith(input: FactorInput, evaluate: RegionEvaluator
         return r;
       }
       // Peak of a region evaluation: dense Float32 fraction and exposure (8 bytes a pixel) plus as much again of working arrays.
-      assertFits(estimateMapBytes(nside, 1, 16), `evaluating region '${name}' at Nside ${nside}`,
-        `lower the working Nside${nside > 1 ? ` (e.g. --nside ${nside / 2})` : ''} or free memory`, input.memoryLimitBytes);
+      assertNsideFits(estimateMapBytes(nside, 1, 16), `evaluating region '${name}'`, nside, input.memoryLimitBytes);
       const w = evaluate(name, { nside, frame, mode });
       const r = toRegionPixels(w, exposure);
       if (!(r.pixelCount > 0)) {

@@ -6,7 +6,7 @@
  * (scripts/healpy_read_refusal.py). Wording: common practice, no source.
  */
 import { execFileSync } from 'node:child_process';
-import { closeSync, mkdtempSync, openSync, statSync } from 'node:fs';
+import { closeSync, existsSync, mkdtempSync, openSync, readFileSync, statSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it } from 'vitest';
@@ -14,6 +14,7 @@ import { runCli } from '../../src/cli/main.js';
 import { ComputeError, InputError } from '../../src/core/errors.js';
 import { MEMORY_LIMIT_ENV } from '../../src/core/memory.js';
 import { readCsv } from '../../src/io/csv.js';
+import { writeAll, writeFileAtomic } from '../../src/io/atomicWrite.js';
 import { sha256File } from '../../src/io/hash.js';
 import { MAP_INPUT_CAP_BYTES, TEXT_INPUT_CAP_BYTES } from '../../src/io/inputFile.js';
 import { readMapFile, writeMapFile } from '../../src/io/mapFile.js';
@@ -112,5 +113,76 @@ describe('NSIDE must agree with the data length', () => {
     expect(out[0]).toMatchObject({ refused: false, npix: 3072 });
     expect(out[1].refused).toBe(true);
     expect(readMapFile(good).maps[0].planes[0].length).toBe(out[0].npix);
+  });
+});
+
+async function cli(argv: string[]) {
+  let out = '', err = '';
+  const code = await runCli(argv, { out: (t) => { out += t; }, err: (t) => { err += t; } });
+  return { code, out, err };
+}
+
+describe('the memory limit holds where skyspan allocates (core/memory.ts)', () => {
+  const regions = join(dir, 'regions.yaml');
+  writeFileSync(regions, 'regions:\n  plane:\n    box: { frame: galactic, lonDeg: [-180, 180], latDeg: [-5, 5] }\n');
+  // Estimates: 12 Nside^2 pixels a plane (Gorski et al. 2005, ApJ 622, 759, eq. 2); 12 x 8192^2 x 16 bytes = 12.9 GB.
+  it('mask at Nside 8192 under a 2 GB limit is refused before evaluating, in one line', async () => {
+    process.env[MEMORY_LIMIT_ENV] = '2e9';
+    const out = join(dir, 'mask8192.fits');
+    const r = await cli(['mask', regions, 'plane', '-o', out, '--nside', '8192']);
+    expect(r.code).toBe(1);
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/^skyspan: evaluating region 'plane' at Nside 8192 needs about 12\.0 GiB, more than the 1\.9 GiB \(limit set by SKYSPAN_MEMORY_LIMIT_BYTES\); lower the working Nside \(e\.g\. --nside 4096\)/);
+    expect(existsSync(out)).toBe(false);
+  });
+  it('remap to Nside 8192 under a 2 GB limit is refused before resampling', async () => {
+    const src = join(dir, 'n16-remap.fits');
+    writeMapFile(src, testMap(16), {});
+    process.env[MEMORY_LIMIT_ENV] = '2e9';
+    const r = await cli(['remap', src, join(dir, 'up.fits'), '--nside', '8192']);
+    expect(r.code).toBe(1);
+    expect(r.err).toMatch(/^skyspan: remapping 1 plane of .* at Nside 8192 needs about 12\.0 GiB, more than the 1\.9 GiB/);
+  });
+  it('writing a map checks its encoded copies: a gzip output needs three, refused under a small limit', () => {
+    const m = testMap(64, { f64: true }); // 49152 pixels x 8 bytes = 384 KiB a plane
+    const out = join(dir, 'w.fits.gz');
+    expect(() => writeMapFile(out, m, { memoryLimitBytes: 1e6 })).toThrow(/^writing 1 plane of 384 KiB to .*w\.fits\.gz needs about 1\.5 MiB, more than the 977 KiB \(limit given as an option\); write uncompressed/);
+    expect(existsSync(out)).toBe(false);
+    writeMapFile(join(dir, 'w.fits'), m, { memoryLimitBytes: 1e6 }); // 384 KiB encoded + 384 KiB held fit
+  });
+  it('sources: a count of 1e12 is refused in one line (before: "internal error: Invalid typed array length")', async () => {
+    const section = join(dir, 'huge.yaml');
+    writeFileSync(section, ['# invented population', 'populations:', '  name: invented-huge', '  count: 1.0e12',
+      '  spatial: { distribution: green2015, scaleHeightKpc: 0.1 }', '  luminosity: { alpha: 1.8, minErgPerS: 1.0e32, maxErgPerS: 1.0e35 }',
+      '  spectrum: { pivotTeV: 10, index: 2.4 }', '  energiesTeV: [10, 30]',
+      '  threshold: { fluxErgCm2S: 2.0e-12, referenceDecDeg: 30, siteLatDeg: 30, maxZenithDeg: 45 }',
+      '  realisations: 4', '  seed: 2', '  nside: 8', ''].join('\n'));
+    const r = await cli(['sources', section, '--json']);
+    expect(r.code).toBe(1);
+    expect(r.err.trim().split('\n')).toHaveLength(1);
+    expect(r.err).toMatch(/^skyspan: a realisation of 1\.00e\+12 sources at 2 energies with its result tables needs about \d+(\.\d)? [KMG]iB, more than .*; lower count/);
+    expect(r.err).not.toContain('internal error');
+    // 2000 sources (100 bytes each, 195.3 KiB) plus the result tables under a 100 kB limit: refused, naming the variable.
+    writeFileSync(section, readFileSync(section, 'utf8').replace('1.0e12', '2000'));
+    process.env[MEMORY_LIMIT_ENV] = '1e5';
+    const s = await cli(['sources', section, '--json']);
+    expect(s.code).toBe(1);
+    expect(s.err).toMatch(/needs about 19\d KiB, more than the 98 KiB \(limit set by SKYSPAN_MEMORY_LIMIT_BYTES\)/);
+  });
+});
+
+describe('outputs over 2 GiB are written in pieces', () => {
+  it('writeAll hands write(2) at most 1 GiB at a time: 2 GiB + 1 bytes to /dev/null (before: ERR_OUT_OF_RANGE)', () => {
+    const fd = openSync('/dev/null', 'w');
+    try {
+      expect(() => writeAll(fd, new Uint8Array(2 ** 31 + 1))).not.toThrow(); // zero pages, never touched: no resident memory
+    } finally { closeSync(fd); }
+  });
+  it('a write failure other than a full disk does not blame disk space', () => {
+    const out = join(dir, 'fails.txt');
+    const fail = (code: string) => () => writeFileAtomic(out, 'x', { writer: () => { throw Object.assign(new Error(code), { code }); } });
+    expect(fail('EIO')).toThrow(/^.*fails\.txt: writing failed: EIO \(choose another folder; earlier outputs are intact\)$/);
+    expect(fail('ENOSPC')).toThrow(/free disk space/);
+    expect(existsSync(out)).toBe(false);
   });
 });
