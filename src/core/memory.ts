@@ -16,9 +16,6 @@ import { ComputeError, InputError } from './errors.js';
 /** Environment variable that caps the memory skyspan assumes it may use (bytes). */
 export const MEMORY_LIMIT_ENV = 'SKYSPAN_MEMORY_LIMIT_BYTES';
 
-/** Bytes per value of the element types maps are held in. */
-export const BYTES_PER_VALUE = { float32: 4, float64: 8 } as const;
-
 /**
  * Bytes held by `planes` full-sky planes at `nside` with `bytesPerValue`
  * bytes per pixel (12 nside^2 pixels per plane), times `copies` (1 + the
