@@ -186,3 +186,21 @@ describe('outputs over 2 GiB are written in pieces', () => {
     expect(existsSync(out)).toBe(false);
   });
 });
+
+describe('a FIFO input as a real program (issue 16: it hung and ignored SIGINT and SIGTERM)', () => {
+  it('skyspan info on a FIFO exits 1 with one line, with no writer ever opening the pipe', async () => {
+    const { spawn } = await import('node:child_process');
+    const root = join(__dirname, '../..');
+    const r = await new Promise<{ code: number | null; stderr: string; killed: boolean }>((done) => {
+      const child = spawn(process.execPath, ['--import', 'tsx', 'src/cli/main.ts', 'info', fifo], { cwd: root, stdio: ['ignore', 'pipe', 'pipe'] });
+      let stderr = '', killed = false;
+      child.stderr.on('data', (d) => { stderr += d; });
+      const t = setTimeout(() => { killed = true; child.kill('SIGKILL'); }, 170_000); // a hang ends here and fails below (start-up under tsx can take 40 s on a loaded machine)
+      child.on('close', (code) => { clearTimeout(t); done({ code, stderr, killed }); });
+    });
+    expect(r.killed).toBe(false);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/^skyspan: .*pipe\.csv: is a FIFO \(named pipe\), not a regular file/);
+    expect(r.stderr.trim().split('\n')).toHaveLength(1);
+  }, 180_000);
+});
