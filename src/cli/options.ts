@@ -3,8 +3,8 @@
  * conversion-method and table-format lists, reading a region file, and writing
  * a set of output files so that a refused set writes nothing. Bad values are `UsageError`s (exit 2).
  */
-import { readFileSync } from 'node:fs';
-import { InputError, UsageError } from '../core/errors.js';
+import { readInputText } from '../io/inputFile.js';
+import { UsageError } from '../core/errors.js';
 import { checkWritable, writeFileAtomic } from '../io/atomicWrite.js';
 import { parseRegionDocument } from '../regions/document.js';
 import type { RegionDocument } from '../regions/types.js';
@@ -50,9 +50,5 @@ export function writeOutputs(files: readonly { path: string; text: string | Uint
 
 /** Reads and parses a region file (YAML or JSON); an unreadable file is an InputError naming it. */
 export function readRegionFile(file: string): RegionDocument {
-  let text: string;
-  try { text = readFileSync(file, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read the region file (${(e as NodeJS.ErrnoException).code ?? String(e)})`, { file });
-  }
-  return parseRegionDocument(text, file);
+  return parseRegionDocument(readInputText(file), file);
 }

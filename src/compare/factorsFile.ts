@@ -12,7 +12,7 @@
  *    `target`); a template whose planes all carry an energy gives a per-energy
  *    table of k_I over its planes, otherwise plane 0 is used (with a note).
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../io/inputFile.js';
 import { InputError } from '../core/errors.js';
 import type { EnergyTable, TemplateFactor } from './ensemble.js';
 
@@ -84,8 +84,9 @@ export function parseFactors(doc: unknown, file = '<factors>', opts: { target?: 
 /** Reads a factors JSON file (see the module comment). */
 export function readFactors(path: string, opts: { target?: string } = {}): FactorsFile {
   let doc: unknown;
-  try { doc = JSON.parse(readFileSync(path, 'utf8')); } catch (e) {
-    throw new InputError(e instanceof SyntaxError ? `not valid JSON: ${e.message}` : `cannot read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path });
+  const text = readInputText(path);
+  try { doc = JSON.parse(text); } catch (e) {
+    throw new InputError(`not valid JSON: ${(e as Error).message}`, { file: path });
   }
   return parseFactors(doc, path, opts);
 }

@@ -34,7 +34,7 @@
  * limit alone stands in as the limit with no errors. Bad input throws
  * InputError with the key path.
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../io/inputFile.js';
 import { parse as parseYaml } from 'yaml';
 import { z } from 'zod';
 import { InputError } from '../core/errors.js';
@@ -161,10 +161,7 @@ function normAndLikelihood(d: NormDoc, toI: (v: number, keyPath: string) => numb
 
 /** Reads a measurement YAML (or JSON) file. */
 export function readMeasurement(path: string): NeutrinoMeasurement {
-  let text: string;
-  try { text = readFileSync(path, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path });
-  }
+  const text = readInputText(path);
   let doc: unknown;
   try { doc = parseYaml(text); } catch (e) {
     throw new InputError(`not valid YAML: ${(e as Error).message.split('\n')[0]}`, { file: path });

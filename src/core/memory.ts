@@ -16,9 +16,6 @@ import { ComputeError, InputError } from './errors.js';
 /** Environment variable that caps the memory skyspan assumes it may use (bytes). */
 export const MEMORY_LIMIT_ENV = 'SKYSPAN_MEMORY_LIMIT_BYTES';
 
-/** Bytes per value of the element types maps are held in. */
-export const BYTES_PER_VALUE = { float32: 4, float64: 8 } as const;
-
 /**
  * Bytes held by `planes` full-sky planes at `nside` with `bytesPerValue`
  * bytes per pixel (12 nside^2 pixels per plane), times `copies` (1 + the
@@ -72,8 +69,22 @@ export function assertFits(neededBytes: number, what: string, hint: string, limi
   const limit = availableMemoryBytes(limitBytes);
   if (limit.source !== 'system') neededBytes += heldBytes;
   if (neededBytes > limit.bytes) {
-    const from = limit.source === 'environment' ? ` (limit set by ${MEMORY_LIMIT_ENV})`
-      : limit.source === 'option' ? ' (limit given as an option)' : ' the system reports free';
-    throw new ComputeError(`${what} needs about ${formatBytes(neededBytes)}, more than the ${formatBytes(limit.bytes)}${from}; ${hint}`);
+    throw new ComputeError(`${what} needs about ${formatBytes(neededBytes)}, more than the ${describeLimit(limit)}; ${hint}`);
   }
+}
+
+/**
+ * {@link assertFits} for a job whose size is set by a working Nside: the hint
+ * is to halve it (`--nside N/2`) or free memory.
+ */
+export function assertNsideFits(neededBytes: number, what: string, nside: number, limitBytes?: number): void {
+  assertFits(neededBytes, `${what} at Nside ${nside}`,
+    `lower the working Nside${nside > 1 ? ` (e.g. --nside ${nside / 2})` : ''} or free memory`, limitBytes);
+}
+
+/** "200.0 MiB (limit set by SKYSPAN_MEMORY_LIMIT_BYTES)" and the like, for messages. */
+export function describeLimit(limit: MemoryLimit): string {
+  const from = limit.source === 'environment' ? ` (limit set by ${MEMORY_LIMIT_ENV})`
+    : limit.source === 'option' ? ' (limit given as an option)' : ' the system reports free';
+  return `${formatBytes(limit.bytes)}${from}`;
 }

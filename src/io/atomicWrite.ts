@@ -117,10 +117,7 @@ export function writeFileAtomic(
   checkWritable(path, options);
   const dir = dirname(path);
   const tmp = join(dir, `.${basename(path)}.${process.pid}.${Date.now().toString(36)}.tmp`);
-  const write = options.writer ?? ((fd: number, chunk: Uint8Array) => {
-    let off = 0;
-    while (off < chunk.length) off += writeSync(fd, chunk, off, chunk.length - off);
-  });
+  const write = options.writer ?? writeAll;
   let fd: number;
   try {
     fd = openSync(tmp, 'wx');
@@ -146,9 +143,20 @@ export function writeFileAtomic(
     pending.delete(tmp);
     listener?.({ kind: 'abandon', temporary: tmp, output: path });
     if (e instanceof InputError) throw e;
-    throw new InputError(`writing failed: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`, { file: path },
-      'free disk space or choose another folder; earlier outputs are intact');
+    const code = (e as NodeJS.ErrnoException).code;
+    throw new InputError(`writing failed: ${code ?? (e as Error).message}`, { file: path },
+      (code === 'ENOSPC' || code === 'EDQUOT' ? 'free disk space or choose another folder' : 'choose another folder')
+      + '; earlier outputs are intact');
   }
+}
+
+/** Most bytes handed to one write(2): writeSync refuses a length over 2^31 - 1 (ERR_OUT_OF_RANGE). */
+export const WRITE_PIECE_BYTES = 2 ** 30;
+
+/** Writes all of `chunk` at the descriptor's position, in pieces of at most {@link WRITE_PIECE_BYTES}. */
+export function writeAll(fd: number, chunk: Uint8Array): void {
+  let off = 0;
+  while (off < chunk.length) off += writeSync(fd, chunk, off, Math.min(chunk.length - off, WRITE_PIECE_BYTES));
 }
 
 /**

@@ -4,8 +4,8 @@
  * '#' comment lines and blank lines skipped, and the 1-based file line of
  * every row kept for error messages.
  */
-import { readFileSync } from 'node:fs';
 import { InputError } from '../core/errors.js';
+import { readInputText } from './inputFile.js';
 
 /** A parsed CSV: header fields, data rows and the file line where each row starts. */
 export interface CsvTable {
@@ -16,13 +16,7 @@ export interface CsvTable {
 
 /** Reads a CSV file (UTF-8; a byte-order mark is dropped). */
 export function readCsv(path: string): CsvTable {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new InputError(`cannot read the file (${(e as NodeJS.ErrnoException).code ?? String(e)})`, { file: path });
-  }
-  return parseCsv(text, path);
+  return parseCsv(readInputText(path), path);
 }
 
 /**

@@ -7,7 +7,7 @@ import { statSync } from 'node:fs';
 import { InputError } from '../core/errors.js';
 import { assertFits } from '../core/memory.js';
 import type { SkyMap } from '../maps/skyMap.js';
-import { gunzipFits, isGzip, loadFitsBytes } from './fits/source.js';
+import { gunzipWithinMemory, isGzip, loadFitsBytes } from './fits/source.js';
 import { walkHdus } from './fits/hdu.js';
 import { readMapsFromHdus, type MapFileContents, type ReadMapOptions } from './mapRead.js';
 
@@ -24,7 +24,7 @@ export { describeFitsFile, type FitsDescription } from './fitsDescribe.js';
  */
 export function readMapFile(path: string, options: ReadMapOptions = {}): MapFileContents {
   checkFileMemory(path, options.memoryLimitBytes);
-  const bytes = loadFitsBytes(path);
+  const bytes = loadFitsBytes(path, options.memoryLimitBytes);
   const hdus = walkHdus(bytes, path);
   return readMapsFromHdus(bytes, hdus, path, options);
 }
@@ -43,7 +43,7 @@ function checkFileMemory(path: string, limitBytes: number | undefined): void {
  * `file` in error messages. The bytes may be changed (decoded in place).
  */
 export function readMapBytes(bytes: Uint8Array, file: string, options: ReadMapOptions = {}): MapFileContents {
-  const plain = isGzip(bytes) ? gunzipFits(bytes, file) : bytes;
+  const plain = isGzip(bytes) ? gunzipWithinMemory(bytes, file, options.memoryLimitBytes) : bytes;
   return readMapsFromHdus(plain, walkHdus(plain, file), file, options);
 }
 

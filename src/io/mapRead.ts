@@ -109,6 +109,12 @@ export function readMapsFromHdus(bytes: Uint8Array, hdus: Hdu[], file: string, o
     const npix = nside2npix(nside);
     first = h.optInt('FIRSTPIX', 0, npix - 1, 0);
     last = h.optInt('LASTPIX', first, npix - 1, npix - 1);
+    const dataNside = npix2nside(count);
+    if (first === 0 && dataNside !== nside && !Number.isNaN(dataNside)) {
+      // healpy's read_map refuses such a file too ("Wrong nside parameter").
+      throw new InputError(`NSIDE ${nside} disagrees with the data: the map column ${valueCols[0].name} holds ${count} pixels per plane, a full sky at Nside ${dataNside}`,
+        { file, keyword: 'NSIDE', byteOffset: h.offsetOf('NSIDE') }, `set NSIDE = ${dataNside} and LASTPIX = ${count - 1} if the data are right`);
+    }
     if (count !== last - first + 1) {
       throw new InputError(`the map column ${valueCols[0].name} holds ${count} pixels per plane, but NSIDE ${nside} with FIRSTPIX ${first} and LASTPIX ${last} needs ${last - first + 1}`,
         { file, keyword: 'NAXIS2', byteOffset: h.offsetOf('NAXIS2') }, 'the table is truncated, or NSIDE, NAXIS2 or TFORM is wrong');

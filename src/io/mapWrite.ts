@@ -10,6 +10,7 @@
  */
 import { gzipSync } from 'node:zlib';
 import { InputError } from '../core/errors.js';
+import { assertFits, formatBytes } from '../core/memory.js';
 import { nside2npix } from '../sphere/nside.js';
 import { isBlank } from '../maps/blank.js';
 import { BLANK, type MapArray, type SkyMap } from '../maps/skyMap.js';
@@ -26,6 +27,8 @@ export interface WriteMapOptions {
   header?: Record<string, string | number | boolean>;
   /** Compress with gzip; default: when the path ends in .gz. */
   gzip?: boolean;
+  /** Memory limit in bytes (default: SKYSPAN_MEMORY_LIMIT_BYTES, else what the system reports free; core/memory.ts). */
+  memoryLimitBytes?: number;
 }
 
 const COORDSYS: Record<string, string | undefined> = { galactic: 'G', equatorial: 'C', unknown: undefined };
@@ -78,6 +81,31 @@ function gatherPixels(planes: MapArray[], npix: number): Int32Array {
 }
 
 /**
+ * Refuses, before encoding, a write whose copies would not fit: the encoded
+ * table (planes x 12 Nside^2 x 4 or 8 bytes), planes converted to `dtype`, the
+ * pixel list of an explicit layout and, for gzip, the joined bytes and the
+ * compressed output (taken as large as the input). The maps, already held,
+ * count against an explicit limit.
+ */
+function checkWriteMemory(path: string, list: SkyMap[], npix: number, dtype: 'float32' | 'float64', options: WriteMapOptions): void {
+  const size = dtype === 'float32' ? 4 : 8;
+  let planes = 0, converted = 0, held = 0;
+  for (const m of list) {
+    for (const p of m.planes) {
+      planes++;
+      held += p.byteLength;
+      if (!(p instanceof (dtype === 'float32' ? Float32Array : Float64Array))) converted++;
+    }
+  }
+  const encoded = planes * npix * size;
+  const gzip = options.gzip ?? /\.gz$/i.test(path);
+  const needed = encoded * (gzip ? 3 : 1) + converted * npix * size + (options.layout === 'explicit' ? 5 * npix : 0);
+  assertFits(needed, `writing ${planes} plane${planes === 1 ? '' : 's'} of ${formatBytes(npix * size)} to ${path}`,
+    `write ${gzip ? 'uncompressed (.fits) or ' : ''}${size === 8 ? 'float32 (--dtype float32) or ' : ''}at a lower Nside`,
+    options.memoryLimitBytes, held);
+}
+
+/**
  * Writes one or more maps (same Nside, ordering, frame), or one energy cube,
  * to a FITS file through writeFileAtomic (an existing file is replaced only
  * with `force`; an input path is refused).
@@ -89,6 +117,7 @@ export function writeMapFile(path: string, maps: SkyMap | SkyMap[], options: Wri
   const npix = nside2npix(m0.nside);
   const dtype = options.dtype ?? (list.every((m) => m.planes.every((p) => p instanceof Float64Array)) ? 'float64' : 'float32');
   const cube = m0.energiesGeV !== null;
+  checkWriteMemory(path, list, npix, dtype, options);
   const named = cube
     ? m0.planes.map((p, k) => ({ name: planeColumnName(k), unit: m0.unit, plane: convert(p, dtype) }))
     : list.map((m) => ({ name: m.column, unit: m.unit, plane: convert(m.planes[0], dtype) }));

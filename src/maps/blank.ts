@@ -26,8 +26,3 @@ export function countBlanks(plane: ArrayLike<number>): number {
   }
   return n;
 }
-
-/** Fills a plane with {@link BLANK}. */
-export function fillBlank(plane: MapArray): void {
-  plane.fill(BLANK);
-}

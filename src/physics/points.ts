@@ -19,7 +19,7 @@
  * - `ul` (1/0, true/false, yes/no): the row is an upper limit; `value` is the limit.
  * Bad rows throw InputError with the file's 1-based line number.
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../io/inputFile.js';
 import { InputError } from '../core/errors.js';
 import { parseCsv } from '../io/csv.js';
 import { energyUnitFactor, intensityUnit } from './units.js';
@@ -121,9 +121,5 @@ export function parseSpectrumPoints(text: string, file = '<text>'): SpectrumPoin
 
 /** Reads points from a CSV file (see the module comment for the format). */
 export function readSpectrumPoints(path: string): SpectrumPoints {
-  let text: string;
-  try { text = readFileSync(path, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path });
-  }
-  return parseSpectrumPoints(text, path);
+  return parseSpectrumPoints(readInputText(path), path);
 }

@@ -7,6 +7,8 @@
  * (as in "ph cm^-2 s^-1 sr^-1 TeV^-1") is a count and is dropped; "**" reads as "^".
  * The common units (simpleUnits.ts) are read without mathjs, which is loaded
  * only for other unit strings and for the errors.
+ * A leading numeric factor is part of the unit: "1e-8 GeV cm^-2 s^-1 sr^-1" is 1e-8 of
+ * GeV cm^-2 s^-1 sr^-1 and "1000 GeV" is 1000 GeV ("10^-8" and "3x10^-8" read as 1e-8, 3e-8).
  */
 import type { MathJsInstance, Unit } from 'mathjs';
 import { InputError, type InputLocation } from '../core/errors.js';
@@ -42,14 +44,28 @@ function simpleOf(unitText: string, energy: number, length: number, time: number
   return u && u.energy === energy && u.length === length && u.time === time && u.solidAngle === solidAngle ? u.factor : null;
 }
 
+/**
+ * Parses a unit string, keeping a leading numeric factor ("1e-8 GeV cm^-2 s^-1 sr^-1",
+ * "1000 GeV", "10^-8 TeV^-1 cm^-2 s^-1 sr^-1"): mathjs reads "<number> <unit>" as a
+ * quantity, which is what such a unit means. A factor that is not finite and > 0 is refused.
+ */
 function parse(unitText: string, where: InputLocation, what: string): Unit {
-  const text = cleaned(unitText);
+  const text = cleaned(unitText)
+    .replace(/^(?:([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*[x*\u00d7]\s*)?10\^\(?([+-]?\d+)\)?/, (_m, a, n) => `${a ?? 1}e${n}`);
+  const { math } = unitSystem();
+  let u: Unit;
   try {
-    return unitSystem().math.unit(1, text === '' ? '1' : text) as Unit;
+    u = math.unit(text === '' ? '1' : text) as Unit;
   } catch (e) {
     throw new InputError(`cannot read the ${what} unit "${unitText}": ${(e as Error).message}`, where,
-      'write units like TeV, GeV^-1 cm^-2 s^-1 sr^-1 or erg cm^-2 s^-1 sr^-1');
+      'write units like TeV, 1e-8 GeV cm^-2 s^-1 sr^-1, TeV^-1 cm^-2 s^-1 sr^-1 or erg cm^-2 s^-1 sr^-1');
   }
+  const factor = u.value === null ? 1 : (u.toJSON() as { value: number }).value;
+  if (!(Number.isFinite(factor) && factor > 0)) {
+    throw new InputError(`the ${what} unit "${unitText}" has the factor ${factor}, expected a finite number > 0`, where,
+      'write the factor as a plain number before the unit, e.g. 1e-8 GeV cm^-2 s^-1 sr^-1');
+  }
+  return u.value === null ? math.unit(1, text === '' ? '1' : text) as Unit : u;
 }
 
 /** Factor that turns one `unitText` of energy into GeV; throws InputError unless it is an energy. */

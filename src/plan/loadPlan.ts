@@ -5,7 +5,7 @@
  * names the plan uses checked against the region document. Every problem is
  * one line naming the plan file and the key path.
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../io/inputFile.js';
 import { dirname, isAbsolute, resolve } from 'node:path';
 import { parse as parseYaml } from 'yaml';
 import { InputError } from '../core/errors.js';
@@ -69,9 +69,7 @@ function abs(dir: string, p: string): string {
 }
 
 function readText(path: string, file: string | undefined, keyPath: string): string {
-  try { return readFileSync(path, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read ${path} (${(e as NodeJS.ErrnoException).code ?? String(e)})`, { file, keyPath }, 'paths are relative to the plan\'s folder');
-  }
+  return readInputText(path, { file, keyPath });
 }
 
 /** Resolves a checked plan (see the module comment); `dir` is the folder relative paths start from. */
@@ -136,10 +134,7 @@ export function resolvePlan(plan: PlanDocument, file: string | undefined, dir: s
 /** Reads, checks and resolves the plan file at `path`. */
 export function loadPlan(path: string): ResolvedPlan {
   const file = resolve(path);
-  let text: string;
-  try { text = readFileSync(file, 'utf8'); } catch (e) {
-    throw new InputError(`cannot read the plan (${(e as NodeJS.ErrnoException).code ?? String(e)})`, { file: path });
-  }
+  const text = readInputText(file, { file: path });
   const plan = checkPlan(parseText(text, path), path);
   return resolvePlan(plan, file, dirname(file));
 }

@@ -15,6 +15,7 @@
  * GeV^-1 cm^-2 s^-1. Angular radius: atan(size / d).
  */
 import { InputError } from '../core/errors.js';
+import { assertFits } from '../core/memory.js';
 import { ERG_GEV, KPC_CM } from '../physics/constants.js';
 import type { Random } from '../compare/random.js';
 import { drawLuminosities } from './luminosity.js';
@@ -72,9 +73,31 @@ export function referenceDensityPerKpc3(s: PopulationSampler): number {
   return s.model.count / (2 * sp.scaleHeightKpc * s.table!.areaKpc2);
 }
 
+/**
+ * Bytes one realisation of `count` sources with `energies` energies holds at
+ * its peak: seven per-source arrays (6 x 8 + 4 bytes), the fluxes at the
+ * energies (8 per energy) and as much as 32 bytes a source of working arrays
+ * (resolved flags, region weights, pixel indices). Common practice, no source.
+ */
+export function realisationBytes(count: number, energies: number): number {
+  return count * (84 + 8 * energies);
+}
+
+/**
+ * Throws a ComputeError (core/memory.ts, SKYSPAN_MEMORY_LIMIT_BYTES honoured)
+ * when a realisation of `count` sources, with `tableBytes` of per-realisation
+ * result tables beside it, would not fit.
+ */
+export function assertRealisationFits(count: number, energies: number, tableBytes = 0): void {
+  assertFits(realisationBytes(count, energies) + tableBytes, `a realisation of ${count.toPrecision(3)} sources at ${energies} energies`
+    + (tableBytes > 0 ? ' with its result tables' : ''),
+    `lower count (a source takes about ${realisationBytes(1, energies)} bytes), the realisations or the number of energies`);
+}
+
 /** Draws one realisation of round(model.count) sources (a fixed number per realisation). */
 export function drawRealisation(s: PopulationSampler, rng: Random): SourceRealisation {
   const m = s.model, n = Math.round(m.count), sp = m.spatial;
+  assertRealisationFits(n, m.energiesGeV.length);
   const lRad = new Float64Array(n), bRad = new Float64Array(n), dist = new Float64Array(n);
   for (let i = 0; i < n; i++) {
     if (sp.kind === 'ball') {

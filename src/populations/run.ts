@@ -13,7 +13,7 @@ import type { RegionWeights } from '../regions/types.js';
 import { countsAbove, summedFlux } from './counts.js';
 import type { PopulationModel } from './model.js';
 import { scaleLuminosity } from './luminosity.js';
-import { drawRealisation, populationSampler } from './realise.js';
+import { assertRealisationFits, drawRealisation, populationSampler } from './realise.js';
 import { regionWeightsOfSources } from './sourcePixels.js';
 import { resolvedFlags, type DetectionThreshold } from './threshold.js';
 
@@ -67,6 +67,9 @@ export function runPopulation(input: PopulationRunInput): PopulationRun {
   if (!(Number.isInteger(M) && M >= 2)) throw new InputError(`realisations is ${M}, expected an integer >= 2`, { keyPath: 'realisations' });
   const base = populationSampler(input.model);
   const nE = input.model.energiesGeV.length, K = input.grid.length;
+  // Per-realisation tables (below) and the largest realisation expected (count up 5 sigma) must fit together.
+  const tableBytes = 8 * M * (2 * K * input.countRegions.length + 3 * nE + 2);
+  assertRealisationFits(Math.round(input.model.count * (1 + 5 * (input.countRelSigma ?? 0))), nE, tableBytes);
   const rng = new Random(input.seed, 2 * (input.stream ?? 0) + 1), rngCount = new Random(input.seed, 2 * (input.stream ?? 0) + 2);
   const counts = input.countRegions.map((c) => ({ name: c.name, all: new Float64Array(M * K), resolved: new Float64Array(M * K) }));
   const unres = input.measured ? new Float64Array(M * nE) : null, allNu = input.neutrino ? new Float64Array(M * nE) : null;

@@ -47,12 +47,6 @@ export function createLayer(width: number, height: number): CoverageLayer {
   return { width, height, cov: new Float32Array(width * height), x0: width, y0: height, x1: -1, y1: -1 };
 }
 
-/** Clears a layer for reuse. */
-export function clearLayer(layer: CoverageLayer): void {
-  layer.cov.fill(0);
-  layer.x0 = layer.width; layer.y0 = layer.height; layer.x1 = layer.y1 = -1;
-}
-
 /**
  * Adds a round-capped segment from (x0, y0) to (x1, y1) (pixel coordinates,
  * pixel centres at i + 0.5) of full width `widthPx` to the layer.
@@ -114,15 +108,6 @@ export function compositeLayer(raster: Raster, layer: CoverageLayer, colour: num
       d[o + 2] = Math.round(d[o + 2] + (b - d[o + 2]) * a);
     }
   }
-}
-
-/** Blends one pixel towards colour 0xRRGGBB by alpha in [0, 1]. */
-export function blendPixel(raster: Raster, i: number, j: number, colour: number, alpha: number): void {
-  if (i < 0 || j < 0 || i >= raster.width || j >= raster.height) return;
-  const o = 4 * (j * raster.width + i), d = raster.data;
-  d[o] = Math.round(d[o] + ((colour >> 16) - d[o]) * alpha);
-  d[o + 1] = Math.round(d[o + 1] + (((colour >> 8) & 255) - d[o + 1]) * alpha);
-  d[o + 2] = Math.round(d[o + 2] + ((colour & 255) - d[o + 2]) * alpha);
 }
 
 /**

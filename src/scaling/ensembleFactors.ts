@@ -17,7 +17,7 @@ import { toRegionPixels, wholeSkyPixels, type RegionPixels, type RegionWeightsLi
 import { regionSums, wholeSkySums, SUMS_LENGTH, S } from './regionSums.js';
 import { factorRow, type FactorRow } from './factorRow.js';
 import { summarise, type SummaryRow } from './summary.js';
-import { assertMemoryFits, regionEvaluationBytes } from './memory.js';
+import { assertNsideFits, estimateMapBytes } from '../core/memory.js';
 
 /** The statement every factor table carries. */
 export const EXTRAPOLATION_ASSUMPTION =
@@ -107,7 +107,8 @@ export function computeFactorsWith(input: FactorInput, evaluate: RegionEvaluator
         regions.push({ name, nside, frame, mode, solidAngleSr: r.solidAngleSr, pixelCount: r.pixelCount, exposureWeighted: false, notes: [] });
         return r;
       }
-      assertMemoryFits(regionEvaluationBytes(nside), `evaluating region '${name}'`, nside, input.memoryLimitBytes);
+      // Peak of a region evaluation: dense Float32 fraction and exposure (8 bytes a pixel) plus as much again of working arrays.
+      assertNsideFits(estimateMapBytes(nside, 1, 16), `evaluating region '${name}'`, nside, input.memoryLimitBytes);
       const w = evaluate(name, { nside, frame, mode });
       const r = toRegionPixels(w, exposure);
       if (!(r.pixelCount > 0)) {

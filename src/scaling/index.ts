@@ -9,7 +9,6 @@ export { summarise, SUMMARY_QUANTITIES, type SummaryRow, type SummaryQuantity } 
 export { quantile, quantiles } from './quantiles.js';
 export { regionSums, wholeSkySums, S as REGION_SUM_SLOTS, SUMS_LENGTH } from './regionSums.js';
 export { toRegionPixels, wholeSkyPixels, type RegionPixels, type RegionWeightsLike } from './regionPixels.js';
-export { assertMemoryFits, availableBytes, regionEvaluationBytes, templateBytes } from './memory.js';
 export { buildProvenance, hashInputs, provenanceLines, type FactorProvenance, type ProvenanceInput } from './provenance.js';
 export { renderFactorTables, TABLE_FORMATS, type TableFormat } from './tableText.js';
 export { writeFactorTables } from './writeTables.js';

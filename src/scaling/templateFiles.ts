@@ -9,7 +9,6 @@ import { basename, join } from 'node:path';
 import { InputError } from '../core/errors.js';
 import { readMapFile } from '../io/mapFile.js';
 import type { SkyMap } from '../maps/skyMap.js';
-import { assertMemoryFits } from './memory.js';
 
 const MAP_FILE = /\.(fits|fit|fts)(\.gz)?$/i;
 
@@ -32,18 +31,14 @@ export function listTemplateFiles(paths: string[]): string[] {
 export interface TemplateFromFile { name: string; map: SkyMap; file: string }
 
 /**
- * Reads every template of `files`. Before reading an uncompressed file the
- * memory it needs (about 3 times its size: the bytes and the decoded planes
- * with headroom) is checked against the available memory; compressed files
- * are not pre-checked (their size does not bound the decoded size).
+ * Reads every template of `files`, each checked against the memory limit by
+ * readMapFile (the file's bytes, the gzip output while inflating, the decoded
+ * planes; core/memory.ts).
  */
 export function readTemplateFiles(files: string[], opts: { frame?: 'galactic' | 'equatorial'; memoryLimitBytes?: number } = {}): TemplateFromFile[] {
   const out: TemplateFromFile[] = [];
   for (const file of files) {
-    if (!/\.gz$/i.test(file)) {
-      assertMemoryFits(3 * statSync(file).size, `reading template ${file}`, NaN, opts.memoryLimitBytes);
-    }
-    const { maps } = readMapFile(file, opts.frame ? { frame: opts.frame } : {});
+    const { maps } = readMapFile(file, { ...(opts.frame ? { frame: opts.frame } : {}), memoryLimitBytes: opts.memoryLimitBytes });
     const stem = basename(file).replace(MAP_FILE, '');
     for (const map of maps) out.push({ name: maps.length > 1 ? `${stem}:${map.column}` : stem, map, file });
   }

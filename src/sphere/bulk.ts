@@ -5,7 +5,7 @@
  */
 import type { Ordering } from './nside.js';
 import { ringTable } from './ringTable.js';
-import { ringToNest, zPhiToRing, nestToRing } from './pixelIndex.js';
+import { ringToNest, zPhiToRing } from './pixelIndex.js';
 
 /** Any array of pixel indices: Uint32Array holds every index up to Nside 8192. */
 export type IndexArray = Uint32Array | Float64Array | Int32Array;
@@ -43,17 +43,3 @@ export function anglesToPixels(
   }
 }
 
-/**
- * Permutation between orderings: perm[ringIndex] = nestedIndex. Reordering a
- * RING map to NESTED is nested[perm[i]] = ring[i].
- */
-export function ringToNestPermutation(nside: number, out: Uint32Array): void {
-  const n = out.length;
-  for (let i = 0; i < n; i++) out[i] = ringToNest(nside, i);
-}
-
-/** perm[nestedIndex] = ringIndex, for all pixels. */
-export function nestToRingPermutation(nside: number, out: Uint32Array): void {
-  const n = out.length;
-  for (let i = 0; i < n; i++) out[i] = nestToRing(nside, i);
-}

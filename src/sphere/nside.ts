@@ -33,11 +33,6 @@ export function npix2nside(npix: number): number {
   return nside2npix(nside) === npix && isValidNside(nside) ? nside : NaN;
 }
 
-/** log2(Nside), the HEALPix order. */
-export function nside2order(nside: number): number {
-  return Math.round(Math.log2(nside));
-}
-
 /** Solid angle of one pixel in sr: 4 pi / (12 Nside^2) (all pixels have equal area). */
 export function pixelAreaSr(nside: number): number {
   return (4 * Math.PI) / nside2npix(nside);

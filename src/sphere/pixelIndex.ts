@@ -55,12 +55,6 @@ export function angToRing(nside: number, theta: number, phi: number): number {
   return zPhiToRing(nside, Math.cos(theta), Math.sin(theta), phi);
 }
 
-/** RING pixel holding the direction of the (not necessarily unit) vector (x, y, z). */
-export function vecToRing(nside: number, x: number, y: number, z: number): number {
-  const r = Math.sqrt(x * x + y * y + z * z);
-  return zPhiToRing(nside, z / r, Math.sqrt(x * x + y * y) / r, Math.atan2(y, x));
-}
-
 function spreadBits(v: number): number {
   v = (v | (v << 8)) & 0x00ff00ff;
   v = (v | (v << 4)) & 0x0f0f0f0f;

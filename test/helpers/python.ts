@@ -19,6 +19,13 @@ export function pythonAvailable(): boolean {
 }
 
 /**
+ * True when a Python-gated test should be skipped, visibly: the reference is
+ * missing and CI is not 'true'. Use as `it.skipIf(skipWithoutPython)(...)` and
+ * call {@link requirePython} inside, which fails the test under CI=true.
+ */
+export const skipWithoutPython: boolean = !pythonAvailable() && process.env.CI !== 'true';
+
+/**
  * Returns true when the reference can run. Outside CI a missing reference
  * returns false (the caller skips); under CI=true it throws, failing the test.
  */

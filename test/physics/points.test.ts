@@ -34,7 +34,7 @@ describe('parseSpectrumPoints', () => {
       if (i < 4) expect(p.errHigh[i] / a.errHigh[i]).toBeCloseTo(1, 12);
       expect(p.upperLimit[i]).toBe(a.upperLimit[i]);
     }
-    expect(a.value[0]).toBeCloseTo(2e-15, 27);
+    expect(Math.abs(a.value[0] / 2e-15 - 1)).toBeLessThan(1e-12);
     const fa = fitSpectrum(a, 'powerLaw'), fc = fitSpectrum(c, 'powerLaw');
     expect(fc.params.index).toBeCloseTo(fa.params.index, 8);
     expect(fc.params.norm / fa.params.norm).toBeCloseTo(1, 8);
@@ -54,5 +54,21 @@ describe('parseSpectrumPoints', () => {
       .toThrow(InputError);
     expect(() => parseSpectrumPoints('# energy_unit: TeV\n# value_unit: TeV^-1 cm^-2 s^-1\nenergy,value,err\n1,1,1\n', 'p.csv'))
       .toThrow(/row 4: "TeV\^-1 cm\^-2 s\^-1" is not an intensity unit/);
+  });
+});
+
+// Issue 16: a unit with a number in it lost the number (results 1e8 too high), exit 0.
+// Expected values from the unit definitions (SI prefixes; common practice, no source).
+describe('parseSpectrumPoints with factored units', () => {
+  it('"# value_unit: 1e-8 GeV cm^-2 s^-1 sr^-1" and "# energy_unit: 1000 GeV" keep their factors', () => {
+    const p = parseSpectrumPoints('# energy_unit: 1000 GeV\n# value_unit: 1e-8 GeV cm^-2 s^-1 sr^-1\nenergy,value,err\n10,4,1\n', 'f.csv');
+    // E = 10 x 1000 GeV = 1e4 GeV; E^2 I = 4e-8 GeV cm^-2 s^-1 sr^-1 -> I = 4e-8 / 1e8 = 4e-16 GeV^-1 cm^-2 s^-1 sr^-1
+    expect(Math.abs(p.energyGeV[0] / 1e4 - 1)).toBeLessThan(1e-14);
+    expect(Math.abs(p.value[0] / 4e-16 - 1)).toBeLessThan(1e-14);
+    expect(Math.abs(p.errLow[0] / 1e-16 - 1)).toBeLessThan(1e-14);
+  });
+  it('refuses a zero factor in one line naming the file and row', () => {
+    expect(() => parseSpectrumPoints('# energy_unit: 0 GeV\n# value_unit: GeV^-1 cm^-2 s^-1 sr^-1\nenergy,value,err\n10,4,1\n', 'f.csv'))
+      .toThrow(/^f\.csv, row 4: the energy unit "0 GeV" has the factor 0/);
   });
 });

@@ -3,10 +3,10 @@
  * to target regions, written as CSV, Markdown, JSON and LaTeX tables with
  * provenance. Without --templates the shipped ensemble is used.
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../../io/inputFile.js';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
-import { InputError, UsageError } from '../../core/errors.js';
+import { UsageError } from '../../core/errors.js';
 import { parseRegionDocument } from '../../regions/document.js';
 import type { RegionDocument, RegionNode } from '../../regions/types.js';
 import { regionBaseDir } from '../../regions/catalogue.js';
@@ -59,9 +59,7 @@ async function action(o: Options, io: CliIo, argv: string[]): Promise<void> {
   const formats = parseFormats(o.format);
   const nside = o.nside === undefined ? undefined : Number(o.nside);
   if (nside !== undefined) assertNside(nside, { keyPath: '--nside' });
-  let text: string;
-  try { text = readFileSync(o.regions, 'utf8'); } catch { throw new InputError('cannot be read', { file: o.regions }, 'check the --regions path'); }
-  const doc = parseRegionDocument(text, o.regions);
+  const doc = parseRegionDocument(readInputText(o.regions), o.regions);
   const inputs: { role: string; path: string }[] = [{ role: 'regions', path: o.regions },
     ...referencedFiles(doc, o.regions).map((p) => ({ role: 'region data', path: p }))];
   let templates: (FactorTemplate & { file?: string })[];

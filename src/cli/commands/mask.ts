@@ -6,6 +6,7 @@
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { InputError, UsageError } from '../../core/errors.js';
+import { assertNsideFits, estimateMapBytes } from '../../core/memory.js';
 import { evaluateRegion } from '../../regions/evaluate.js';
 import { writeRegionMask } from '../../regions/mask.js';
 import { VERSION } from '../../version.js';
@@ -21,6 +22,8 @@ function action(file: string, name: string, o: Options, io: CliIo): void {
   const nside = parseInteger(o.nside, '--nside');
   const depth = o.depth === undefined ? undefined : parseInteger(o.depth, '--depth');
   const doc = readRegionFile(file);
+  // Evaluation peak as for a factor job (Float32 fraction and exposure plus working arrays), then the written copy.
+  assertNsideFits(estimateMapBytes(nside, 1, 16), `evaluating region '${name}'`, nside);
   const t0 = Date.now();
   const w = evaluateRegion(doc, name, { nside, frame: o.frame, mode: o.centre ? 'centre' : 'fraction', depth });
   const seconds = (Date.now() - t0) / 1000;

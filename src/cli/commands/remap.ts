@@ -6,6 +6,7 @@
  */
 import type { Command } from 'commander';
 import { UsageError } from '../../core/errors.js';
+import { assertNsideFits, estimateMapBytes } from '../../core/memory.js';
 import { readMapFile, writeMapFile } from '../../io/mapFile.js';
 import { reframe } from '../../maps/reframe.js';
 import { reorder } from '../../maps/reorder.js';
@@ -54,6 +55,11 @@ export function register(program: Command, io: CliIo): void {
       const layout = choice(opts.layout, '--layout', ['implicit', 'explicit'] as const);
       const dtype = choice(opts.dtype, '--dtype', ['float32', 'float64'] as const);
       const { maps } = readMapFile(inPath, { frame: inputFrame as FrameName | undefined });
+      if (nside !== undefined) {
+        // The resampled planes (float64) and a reordered copy, beside the input's planes already held.
+        const planes = maps.reduce((a, x) => a + x.planes.length, 0);
+        assertNsideFits(estimateMapBytes(nside, planes, 8, 2), `remapping ${planes} plane${planes === 1 ? '' : 's'} of ${inPath}`, nside);
+      }
       const out: SkyMap[] = maps.map((m0) => {
         let m = m0;
         if (frame && m.frame !== frame) {

@@ -3,7 +3,7 @@
  * `populations` key of a larger YAML/JSON file) and writes the N(>S) table
  * (CSV and JSON), the source-intensity table and the log N - log S plot (SVG).
  */
-import { readFileSync } from 'node:fs';
+import { readInputText } from '../../io/inputFile.js';
 import { dirname, join, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { parse as parseYaml } from 'yaml';
@@ -15,10 +15,6 @@ import { parseRegionDocument } from '../../regions/document.js';
 import type { CliIo } from '../main.js';
 
 interface Options { regions?: string; out?: string; seed?: string; realisations?: string; force?: boolean; json?: boolean }
-
-function readText(path: string, what: string): string {
-  try { return readFileSync(path, 'utf8'); } catch { throw new InputError('cannot be read', { file: path }, `check the ${what} path`); }
-}
 
 function integerOption(v: string | undefined, name: string, min: number): number | undefined {
   if (v === undefined) return undefined;
@@ -41,7 +37,7 @@ function jsonOf(r: PopulationSectionResult, written: string[]): unknown {
 }
 
 async function action(file: string, o: Options, io: CliIo): Promise<void> {
-  const text = readText(file, 'section file');
+  const text = readInputText(file);
   let data: unknown;
   try { data = parseYaml(text); } catch (e) { throw new InputError(`not valid YAML: ${(e as Error).message.split('\n')[0]}`, { file }); }
   const nested = data !== null && typeof data === 'object' && 'populations' in (data as Record<string, unknown>);
@@ -51,7 +47,7 @@ async function action(file: string, o: Options, io: CliIo): Promise<void> {
   const seed = integerOption(o.seed, '--seed', 0), realisations = integerOption(o.realisations, '--realisations', 2);
   if (seed !== undefined) sec.seed = seed;
   if (realisations !== undefined) sec.realisations = realisations;
-  const regions = o.regions ? parseRegionDocument(readText(o.regions, '--regions'), o.regions) : null;
+  const regions = o.regions ? parseRegionDocument(readInputText(o.regions), o.regions) : null;
   const result = runPopulationSection(sec, { regions, file, keyPath: prefix, baseDir: dirname(resolve(file)) });
   const inputs = [resolve(file), ...(o.regions ? [resolve(o.regions)] : [])];
   const written: string[] = [];

@@ -3,10 +3,11 @@
  * gzip magic bytes 1f 8b, RFC 1952 section 2.3.1, whatever the file name) and
  * inflated with node:zlib.
  */
-import { readFileSync, statSync } from 'node:fs';
 import { gunzipSync } from 'node:zlib';
 import { constants as bufferConstants } from 'node:buffer';
-import { InputError } from '../../core/errors.js';
+import { ComputeError, InputError } from '../../core/errors.js';
+import { availableMemoryBytes, describeLimit } from '../../core/memory.js';
+import { readInputBytes } from '../inputFile.js';
 
 /** True when the bytes start with the gzip magic number (RFC 1952). */
 export function isGzip(bytes: Uint8Array): boolean {
@@ -32,17 +33,29 @@ export function gunzipFits(bytes: Uint8Array, file: string, maxBytes = MAX_INFLA
 }
 
 /**
- * Reads a file's bytes, inflating gzip. The returned Buffer is owned by the
+ * Inflates gzip bytes under the memory limit (core/memory.ts; `memoryLimitBytes`
+ * overrides it): zlib stops as soon as the output would pass the limit less the
+ * compressed bytes held, so a small file cannot decode to gigabytes first.
+ */
+export function gunzipWithinMemory(raw: Uint8Array, file: string, memoryLimitBytes?: number): Buffer {
+  const limit = availableMemoryBytes(memoryLimitBytes);
+  const budget = Math.max(0, Math.floor(limit.bytes - (limit.source === 'system' ? 0 : raw.length)));
+  if (budget >= MAX_INFLATED_BYTES) return gunzipFits(raw, file);
+  try {
+    return gunzipSync(raw, { maxOutputLength: Math.max(1, budget) });
+  } catch (e) {
+    if ((e as NodeJS.ErrnoException).code !== 'ERR_BUFFER_TOO_LARGE') return gunzipFits(raw, file); // reports the damage
+    throw new ComputeError(`inflating ${file} needs more than the ${describeLimit(limit)}, with its ${raw.length} compressed bytes held; ` +
+      'decompress it where memory allows and lower its Nside (skyspan remap IN OUT --nside N)');
+  }
+}
+
+/**
+ * Reads a file's bytes (a regular file within the map cap, io/inputFile.ts),
+ * inflating gzip within the memory limit. The returned Buffer is owned by the
  * caller (the table reader may byte-swap it in place).
  */
-export function loadFitsBytes(path: string): Buffer {
-  let raw: Buffer;
-  try {
-    if (statSync(path).isDirectory()) throw Object.assign(new Error('is a directory'), { code: 'EISDIR' });
-    raw = readFileSync(path);
-  } catch (e) {
-    const code = (e as NodeJS.ErrnoException).code ?? (e as Error).message;
-    throw new InputError(`cannot read the file (${code})`, { file: path }, 'check the path and permissions');
-  }
-  return isGzip(raw) ? gunzipFits(raw, path) : raw;
+export function loadFitsBytes(path: string, memoryLimitBytes?: number): Buffer {
+  const raw = readInputBytes(path, 'map');
+  return isGzip(raw) ? gunzipWithinMemory(raw, path, memoryLimitBytes) : raw;
 }

@@ -45,10 +45,14 @@ export function primaryHdu(extra: CardSpec[] = []): Uint8Array {
   ]);
 }
 
+/** Most bytes of row data in one chunk: tables larger than a typed array can hold are written as several. */
+export const DATA_CHUNK_BYTES = 2 ** 28;
+
 /**
  * A BINTABLE extension: header (mandatory cards, TTYPEn/TFORMn/TUNITn, then
- * `extra`) and the big-endian row data padded to whole blocks with zeros.
- * All columns must have the same number of rows.
+ * `extra`), then the big-endian row data in chunks of whole rows of at most
+ * {@link DATA_CHUNK_BYTES} (one row if a row is larger), the last padded to
+ * whole blocks with zeros. All columns must have the same number of rows.
  */
 export function bintableHdu(columns: ColumnSpec[], extra: CardSpec[] = []): Uint8Array[] {
   const rows = columns.length ? columns[0].values.length / columns[0].repeat : 0;
@@ -72,24 +76,36 @@ export function bintableHdu(columns: ColumnSpec[], extra: CardSpec[] = []): Uint
     cards.push([`TFORM${i + 1}`, `${c.repeat}${c.logical ? 'L' : TFORM_CODE[c.type]}`, 'column format']);
     if (c.unit) cards.push([`TUNIT${i + 1}`, c.unit, 'column unit']);
   });
-  const head = headerBytes([...cards, ...extra]);
-  const dataBytes = rowBytes * rows;
-  const data = new Uint8Array(Math.ceil(dataBytes / BLOCK) * BLOCK);
-  if (columns.length === 1 && !columns[0].logical) {
-    encodeContiguous(columns[0].values, columns[0].type, data, 0);
-  } else {
-    const dv = new DataView(data.buffer);
-    let off = 0;
-    columns.forEach((c, i) => {
-      const size = elementBytes(c.type);
-      const v = c.values;
-      for (let r = 0, k = 0; r < rows; r++) {
-        let p = r * rowBytes + off;
-        if (c.logical) for (let j = 0; j < c.repeat; j++, p++, k++) dv.setUint8(p, v[k] === 1 ? 84 : v[k] === 0 ? 70 : 0);
-        else for (let j = 0; j < c.repeat; j++, p += size, k++) writeOne(dv, p, c.type, v[k]);
-      }
-      off += widths[i];
-    });
+  const out: Uint8Array[] = [headerBytes([...cards, ...extra])];
+  const perChunk = Math.max(1, Math.floor(DATA_CHUNK_BYTES / Math.max(1, rowBytes)));
+  for (let r0 = 0; r0 < rows || out.length === 1; r0 += perChunk) {
+    const r1 = Math.min(rows, r0 + perChunk), bytes = (r1 - r0) * rowBytes;
+    const data = new Uint8Array(r1 === rows ? Math.ceil((rows * rowBytes) / BLOCK) * BLOCK - r0 * rowBytes : bytes);
+    encodeRows(columns, widths, rowBytes, r0, r1, data);
+    out.push(data);
   }
-  return [head, data];
+  return out;
+}
+
+/** Encodes rows r0..r1 of `columns` big-endian into `data` (row r0 at byte 0). */
+function encodeRows(columns: ColumnSpec[], widths: number[], rowBytes: number, r0: number, r1: number, data: Uint8Array): void {
+  if (columns.length === 1 && !columns[0].logical) {
+    const c = columns[0], v = c.values;
+    const part = ArrayBuffer.isView(v) ? (v as unknown as Float64Array).subarray(r0 * c.repeat, r1 * c.repeat)
+      : Array.prototype.slice.call(v, r0 * c.repeat, r1 * c.repeat) as number[];
+    encodeContiguous(part, c.type, data, 0);
+    return;
+  }
+  const dv = new DataView(data.buffer, data.byteOffset, data.byteLength);
+  let off = 0;
+  columns.forEach((c, i) => {
+    const size = elementBytes(c.type);
+    const v = c.values;
+    for (let r = r0, k = r0 * c.repeat; r < r1; r++) {
+      let p = (r - r0) * rowBytes + off;
+      if (c.logical) for (let j = 0; j < c.repeat; j++, p++, k++) dv.setUint8(p, v[k] === 1 ? 84 : v[k] === 0 ? 70 : 0); // 'T', 'F', 0 = null
+      else for (let j = 0; j < c.repeat; j++, p += size, k++) writeOne(dv, p, c.type, v[k]);
+    }
+    off += widths[i];
+  });
 }

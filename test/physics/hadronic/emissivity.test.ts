@@ -3,13 +3,13 @@ import { SPEED_OF_LIGHT_CM_S } from '../../../src/physics/constants.js';
 import { ppEmissivity, ppNeutrinoFlavours } from '../../../src/physics/hadronic/emissivity.js';
 import { kpiNeutrinoFromGamma } from '../../../src/physics/hadronic/kpiRule.js';
 import type { SpectralModel } from '../../../src/physics/spectrum.js';
-import { requirePython, runPython } from '../../helpers/python.js';
+import { requirePython, runPython, skipWithoutPython } from '../../helpers/python.js';
 
 const pl = (index: number): SpectralModel => ({ kind: 'powerLaw', norm: 1, index, e0GeV: 1 });
 
 describe('ppEmissivity', () => {
-  it('matches scipy adaptive quadrature of the same integrand (scripts/kab_reference.py) to 1e-6', () => {
-    if (!requirePython()) return;
+  it.skipIf(skipWithoutPython)('matches scipy adaptive quadrature of the same integrand (scripts/kab_reference.py) to 1e-6', () => {
+    requirePython(); // under CI=true a missing reference fails here
     const req = [
       { secondary: 'gamma', E: 1e3, index: 2 }, { secondary: 'gamma', E: 1e5, index: 2.7 },
       { secondary: 'nuMuFromPion', E: 5e2, index: 2 }, { secondary: 'electronType', E: 5e4, index: 2.4 },
@@ -48,13 +48,14 @@ describe('ppEmissivity', () => {
 
   it('flavours: source 1:2:0 in shape, Earth split by the ratio, sums conserved', () => {
     const f = ppNeutrinoFlavours(1e4, pl(2.5));
-    expect(f.source.e + f.source.mu + f.source.tau).toBeCloseTo(f.allFlavour, 20);
+    // values near 1e-27: relative tolerances (an absolute toBeCloseTo(x, 20) would accept any value)
+    expect(Math.abs((f.source.e + f.source.mu + f.source.tau) / f.allFlavour - 1)).toBeLessThan(1e-12);
     expect(f.source.tau).toBe(0);
     // nu_mu : nu_e is 2 : 1 in number per pion chain (common practice, no source); at a fixed energy it is
     // 1 + Q(nu_mu, pion)/Q(electron-type), below 2 because the pion-decay nu_mu is softer (x < 0.427); loose bounds
     expect(f.source.mu / f.source.e).toBeGreaterThan(1.4);
     expect(f.source.mu / f.source.e).toBeLessThan(2.1);
-    expect(f.earth.e).toBeCloseTo(f.allFlavour / 3, 20);
+    expect(Math.abs(f.earth.e / (f.allFlavour / 3) - 1)).toBeLessThan(1e-12);
     const g = ppNeutrinoFlavours(1e4, pl(2.5), [1, 2, 0]);
     expect(g.earth.mu / g.earth.e).toBeCloseTo(2, 12);
   });
