@@ -13,6 +13,11 @@ import { assertMemoryFits } from './memory.js';
 
 const MAP_FILE = /\.(fits|fit|fts)(\.gz)?$/i;
 
+/** A template file's name without its folder and extension (the template's name, or its prefix for a file of several maps). */
+export function templateStem(file: string): string {
+  return basename(file).replace(MAP_FILE, '');
+}
+
 /** The map files named by `paths`: files as given, folders expanded. */
 export function listTemplateFiles(paths: string[]): string[] {
   const out: string[] = [];
@@ -44,7 +49,7 @@ export function readTemplateFiles(files: string[], opts: { frame?: 'galactic' | 
       assertMemoryFits(3 * statSync(file).size, `reading template ${file}`, NaN, opts.memoryLimitBytes);
     }
     const { maps } = readMapFile(file, opts.frame ? { frame: opts.frame } : {});
-    const stem = basename(file).replace(MAP_FILE, '');
+    const stem = templateStem(file);
     for (const map of maps) out.push({ name: maps.length > 1 ? `${stem}:${map.column}` : stem, map, file });
   }
   return out;

@@ -15,6 +15,7 @@ import { register as registerCompare } from './compare.js';
 import { register as registerExpectGamma } from './expectGamma.js';
 import { register as registerSources } from './sources.js';
 import { register as registerRun } from './run.js';
+import { register as registerMergeFactors } from './mergeFactors.js';
 
 export function registerCommands(program: Command, io: CliIo): void {
   void program; void io;
@@ -30,4 +31,5 @@ export function registerCommands(program: Command, io: CliIo): void {
   registerExpectGamma(program, io);
   registerSources(program, io);
   registerRun(program, io);
+  registerMergeFactors(program, io);
 }
