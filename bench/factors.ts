@@ -24,7 +24,8 @@ const FITS = benchTemplatePath(NSIDE);
 const PY = '/usr/bin/python3';
 const DISCS: [number, number][] = [[35, 0.5], [52, -1], [78.5, 2], [96, 0]];
 
-const REGIONS = `frame: galactic
+/** The benchmark's region set (see module doc). */
+export const REGIONS = `frame: galactic
 regions:
   survey:
     all:

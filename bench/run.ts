@@ -11,6 +11,7 @@ const suites: Record<string, () => Promise<unknown>> = {
   render: async () => (await import('./render.js')).benchRender(),
   physics: async () => (await import('./physics.js')).benchPhysics(),
   peakMemory: async () => (await import('./peakMemory.js')).benchPeakMemory(),
+  streaming: async () => (await import('./streaming.js')).benchStreaming(),
 };
 
 const wanted = process.argv.slice(2);

@@ -21,6 +21,7 @@ import { parseRegionDocument } from '../../src/regions/document.js';
 import { computeFactors, regionEvaluator } from '../../src/scaling/factors.js';
 import { composeFactorResult, FactorJob } from '../../src/scaling/factorJob.js';
 import { reduceTemplateFiles } from '../../src/scaling/streamFactors.js';
+import { reduceTemplateFilesParallel } from '../../src/scaling/templatePool.js';
 import { readTemplateFiles } from '../../src/scaling/templateFiles.js';
 import { nside2npix } from '../../src/sphere/nside.js';
 import { analyticTemplate } from './fixtures.js';
@@ -116,6 +117,17 @@ describe('the streamed factor job', () => {
       expect(read.map((f) => f.streamed)).toEqual(files.map((f) => !f.includes('unsorted')));
     }
   });
+
+  it('gives the same result on two worker threads, one file per worker', async () => {
+    const { result } = await streamed(files, 1 << 22);
+    const r = regionEvaluator(settings);
+    const job = new FactorJob({ ...settings, isWholeSky: r.isWholeSky }, r.evaluate);
+    const done: number[] = [];
+    const read = await reduceTemplateFilesParallel(job, files, { workers: 2, onFile: (d) => done.push(d) });
+    expect(composeFactorResult([job.log])).toEqual(result);
+    expect(done).toEqual(files.map((_, i) => i + 1));
+    for (const f of read) expect(f.sha256).toBe(createHash('sha256').update(readFileSync(f.file)).digest('hex'));
+  }, 120000);
 
   it('hashes each file in the same pass (SHA-256, FIPS 180-4, as node:crypto computes it)', async () => {
     const { read } = await streamed(files.slice(0, 3), 4096);

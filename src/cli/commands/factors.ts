@@ -3,7 +3,7 @@
  * to target regions, written as CSV, Markdown, JSON and LaTeX tables with
  * provenance. Without --templates the shipped ensemble is used.
  */
-import { readFileSync } from 'node:fs';
+import { readFileSync, statSync } from 'node:fs';
 import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { InputError, UsageError } from '../../core/errors.js';
@@ -18,7 +18,8 @@ import type { FactorResult, FactorTemplate } from '../../scaling/ensembleFactors
 import { listTemplateFiles, readTemplateFiles } from '../../scaling/templateFiles.js';
 import { buildProvenance, hashInputs, type FactorProvenance, type ProvenanceInput } from '../../scaling/provenance.js';
 import { composeFactorResult, FactorJob, type FactorJobSettings } from '../../scaling/factorJob.js';
-import { reduceTemplateFiles } from '../../scaling/streamFactors.js';
+import { reduceTemplateFilesParallel, workerCount } from '../../scaling/templatePool.js';
+import { fileProgress } from '../fileProgress.js';
 import { inShard, makePartial, parseShard } from '../../scaling/shards.js';
 import { join } from 'node:path';
 import { writeFileAtomic } from '../../io/atomicWrite.js';
@@ -29,7 +30,7 @@ import type { CliIo } from '../main.js';
 interface Options {
   regions: string; measured: string; target: string[]; templates?: string[]; weights?: string;
   centre?: boolean; exposure: boolean; frame?: string; nside?: string; format: string; out?: string;
-  force?: boolean; json?: boolean; shard?: string;
+  force?: boolean; json?: boolean; shard?: string; workers?: string;
 }
 
 /** Files a region document refers to (catalogues, exposure maps), resolved. */
@@ -107,6 +108,20 @@ async function action(o: Options, io: CliIo, argv: string[]): Promise<void> {
   emitFactorResult(result, prov, { ...o, formats, inputs: inputs.map((i) => i.path) }, io);
 }
 
+/** Bytes below which template files are reduced in this thread by default (a worker's start-up would cost more). */
+const SMALL_JOB_BYTES = 64 * 2 ** 20;
+
+/** --workers: a positive integer, or by default as many as cores and memory allow for jobs of 2+ files and 64 MiB+. */
+function workers(v: string | undefined, files: string[]): number {
+  if (v !== undefined) {
+    const n = Number(v);
+    if (!(Number.isInteger(n) && n >= 1)) throw new UsageError(`--workers is '${v}', expected a positive integer`);
+    return workerCount(n, files.length);
+  }
+  const bytes = files.reduce((s, f) => s + statSync(f).size, 0);
+  return files.length > 1 && bytes >= SMALL_JOB_BYTES ? workerCount(undefined, files.length) : 1;
+}
+
 function checkWeightCount(w: number[], names: string[]): void {
   if (w.length !== names.length) throw new UsageError(`--weights has ${w.length} values for ${names.length} templates (${names.join(', ')})`);
 }
@@ -125,7 +140,11 @@ async function streamed(o: Options, io: CliIo, c: { doc: RegionDocument; frame?:
   const r = regionEvaluator(settings);
   const job = new FactorJob({ ...settings, isWholeSky: r.isWholeSky }, r.evaluate);
   const otherInputs = hashInputs(c.inputs);
-  const read = await reduceTemplateFiles(job, files, { frame: c.frame, select: shard ? (i) => inShard(i, shard) : undefined });
+  const select = shard ? (i: number) => inShard(i, shard) : () => true;
+  const chosen = files.filter((_, i) => select(i));
+  const progress = chosen.length > 1 ? fileProgress('templates') : null;
+  const read = await reduceTemplateFilesParallel(job, files, { frame: c.frame, select, workers: workers(o.workers, chosen), onFile: progress?.tick })
+    .finally(() => progress?.stop());
   const templateInputs: ProvenanceInput[] = read.map((f) => ({ role: 'template', path: f.file, sha256: f.sha256 }));
   if (shard) {
     const part = makePartial(shard, { measured: o.measured, targets: o.target, mode: o.centre ? 'centre' : 'fraction', exposureWeighted: o.exposure,
@@ -180,6 +199,7 @@ export function register(program: Command, io: CliIo): void {
     .option('-o, --out <dir>', 'folder for the tables (default: print a Markdown table)')
     .option('--force', 'replace existing tables')
     .option('--json', 'print the result as JSON')
+    .option('--workers <n>', 'worker threads reducing template files (default: as many as cores and memory allow, for jobs of 64 MiB or more)')
     .option('--shard <K/N>', 'compute only template files K, K+N, K+2N, ... (K from 1) and write a partial result for merge-factors')
     .addHelpText('after', '\nExample:\n  skyspan factors --regions regions.yaml --measured survey --target plane sky \\\n    --templates models/ --centre -o out/ --format csv,tex\n' +
       '\nTemplate files are streamed: one pass over each file, whatever its number of planes.\n')
