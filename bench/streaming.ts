@@ -9,13 +9,13 @@
  *   - `bin/skyspan.js factors ... --json` over the cube (the regions of
  *     bench/factors.ts, centre mode), single-threaded and in a worker;
  *   - `bin/skyspan.js --version`, the start-up alone.
- * With SKYSPAN_BENCH_ENSEMBLE=M it also copies the cube M times and times the
+ * With SKYSPAN_BENCH_ENSEMBLE=M it also links the cube under M names and times the
  * ensemble with --workers 1 and --workers 2.
  *
  * Run alone: npx tsx bench/streaming.ts   (SKYSPAN_BENCH_NSIDE, SKYSPAN_BENCH_PLANES)
  */
 import { execFileSync } from 'node:child_process';
-import { closeSync, copyFileSync, mkdirSync, openSync, rmSync, statSync, writeFileSync, writeSync } from 'node:fs';
+import { closeSync, linkSync, mkdirSync, openSync, rmSync, statSync, writeFileSync, writeSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { bintableHdu, headerBytes, primaryHdu } from '../src/io/fits/writer.js';
@@ -60,7 +60,7 @@ const SUM_SCRIPT = `const fs=require('fs');const fd=fs.openSync(process.argv[1],
 const f=new Float32Array(ab);let s=0,n;while((n=fs.readSync(fd,b,0,b.length,null))>0){const m=n>>2;b.subarray(0,m*4).swap32();for(let i=0;i<m;i++)s+=f[i];}
 console.log(s);`;
 
-interface Timed { wallSeconds: number; maxRssBytes: number; stdout: string }
+interface Timed { wallSeconds: number; cpuSeconds: number; maxRssBytes: number; stdout: string }
 
 /** Runs a command under /usr/bin/time -v; wall time and peak RSS as the OS reports them. */
 function timed(cmd: string[], env: Record<string, string> = {}): Timed {
@@ -70,7 +70,8 @@ function timed(cmd: string[], env: Record<string, string> = {}): Timed {
   const t = execFileSync('cat', [stderrFile], { encoding: 'utf8' });
   const wall = /Elapsed \(wall clock\) time.*: (?:(\d+):)?(\d+):(\d+(?:\.\d+)?)/.exec(t)!;
   const rss = /Maximum resident set size \(kbytes\): (\d+)/.exec(t)!;
-  return { wallSeconds: Number(wall[1] ?? 0) * 3600 + Number(wall[2]) * 60 + Number(wall[3]), maxRssBytes: Number(rss[1]) * 1024, stdout };
+  const cpu = Number(/User time \(seconds\): ([\d.]+)/.exec(t)![1]) + Number(/System time \(seconds\): ([\d.]+)/.exec(t)![1]);
+  return { wallSeconds: Number(wall[1] ?? 0) * 3600 + Number(wall[2]) * 60 + Number(wall[3]), cpuSeconds: cpu, maxRssBytes: Number(rss[1]) * 1024, stdout };
 }
 
 /** Runs the benchmark and prints its figures (see module doc). */
@@ -92,16 +93,18 @@ export async function benchStreaming(): Promise<void> {
     const version = timed([...cli, '--version']);
     const single = timed(job([cube]), { SKYSPAN_SINGLE_THREAD: '1' });
     const worker = timed(job([cube]));
-    const f = (t: Timed) => `${t.wallSeconds.toFixed(2)} s, peak RSS ${(t.maxRssBytes / 2 ** 20).toFixed(0)} MiB`;
+    const f = (t: Timed) => `${t.wallSeconds.toFixed(2)} s wall, ${t.cpuSeconds.toFixed(2)} s CPU, peak RSS ${(t.maxRssBytes / 2 ** 20).toFixed(0)} MiB`;
     console.log(`reference: read once + sum (node, whole process): ${f(ref)}`);
     console.log(`skyspan --version (start-up only):                 ${f(version)}`);
     console.log(`skyspan factors, one thread (whole process):       ${f(single)}  ratio ${(single.wallSeconds / ref.wallSeconds).toFixed(2)}x (target <= 2x)`);
     console.log(`skyspan factors, worker thread (whole process):    ${f(worker)}  ratio ${(worker.wallSeconds / ref.wallSeconds).toFixed(2)}x`);
+    console.log(`CPU ratios (steadier on a shared machine): one thread ${(single.cpuSeconds / ref.cpuSeconds).toFixed(2)}x, ` +
+      `one thread less start-up ${((single.cpuSeconds - version.cpuSeconds) / ref.cpuSeconds).toFixed(2)}x`);
     const rows = JSON.parse(single.stdout).rows.length;
     console.log(`rows: ${rows} (${PLANES} planes x 2 targets)`);
     if (ENSEMBLE > 0) {
       const copies = Array.from({ length: ENSEMBLE }, (_, i) => join(DIR, `cube${i}.fits`));
-      copies.forEach((c) => copyFileSync(cube, c));
+      copies.forEach((c) => linkSync(cube, c)); // hard links: same bytes, same page cache, distinct template names
       const w1 = timed(job(copies, ['--workers', '1']));
       const w2 = timed(job(copies, ['--workers', '2']));
       console.log(`${ENSEMBLE} templates, --workers 1: ${f(w1)}`);

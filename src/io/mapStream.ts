@@ -44,6 +44,8 @@ export interface MapStreamResult {
   readonly sha256: string;
   /** Size of the file in bytes. */
   readonly bytes: number;
+  /** Bytes of FITS data read (the inflated size of a gzip file). */
+  readonly decodedBytes: number;
 }
 
 /** Options of {@link streamMapFile}. */
@@ -65,6 +67,17 @@ const MAX_ENERGIES_BYTES = 1 << 26;
  * a valid file this reader cannot stream (the caller reads it whole).
  */
 export async function streamMapFile(file: string, sink: MapStreamSink, options: StreamMapOptions = {}): Promise<MapStreamResult> {
+  const r = await streamFitsFile(file, sink, options);
+  if (!r.plan) { findMapHdu(r.rawHdus, file); throw new Error('unreachable: findMapHdu throws'); }
+  return r as MapStreamResult;
+}
+
+/**
+ * As {@link streamMapFile}, but a file without a HEALPix map is described
+ * (`plan` null, `hdus` its HDUs) instead of refused.
+ */
+export async function streamFitsFile(file: string, sink: MapStreamSink, options: StreamMapOptions = {}):
+  Promise<Omit<MapStreamResult, 'plan'> & { plan: MapStreamPlan | null; rawHdus: Hdu[] }> {
   const stream = new ByteStream(file);
   try {
     const hdus: Hdu[] = [];
@@ -92,17 +105,17 @@ export async function streamMapFile(file: string, sink: MapStreamSink, options: 
         await skipHduData(stream, hdu);
       }
     }
-    if (!plan) { findMapHdu(hdus, file); throw new Error('unreachable: findMapHdu throws'); }
-    checkPlanesAgainstEnergies(plan, energies);
     const sha256 = await stream.finish();
     const summaries = hdus.map(summariseHdu);
+    if (!plan) return { plan: null, energiesGeV: null, maps: [], hdus: summaries, sha256, bytes: stream.rawBytes, decodedBytes: stream.offset, rawHdus: hdus };
+    checkPlanesAgainstEnergies(plan, energies);
     const summary = summaries[plan.hdu.index];
     summary.notes.push(...plan.notes);
     summary.healpix = { nside: plan.nside, ordering: plan.ordering, frame: plan.frame, scheme: plan.scheme, coordsys: plan.coordsys };
     const maps: StreamedMap[] = energies
       ? [{ column: plan.hdu.header.string('CUBECOL') ?? plan.valueCols[0].name, unit: plan.valueCols[0].unit, planes: plan.planes.map((_, q) => q) }]
       : plan.valueCols.map((c, q) => ({ column: c.name, unit: c.unit, planes: [q] }));
-    return { plan, energiesGeV: energies, maps, hdus: summaries, sha256, bytes: stream.rawBytes };
+    return { plan, energiesGeV: energies, maps, hdus: summaries, sha256, bytes: stream.rawBytes, decodedBytes: stream.offset, rawHdus: hdus };
   } finally {
     await stream.close();
   }

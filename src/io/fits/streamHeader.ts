@@ -38,6 +38,16 @@ export async function readStreamHdu(stream: ByteStream, index: number): Promise<
       // after the first HDU, fill or bytes that are not an extension end the file (as walkHdus treats them)
       if (got < 8 || block.toString('latin1', 0, 8) !== 'XTENSION') return null;
     }
+    if (index === 0 && blocks.length === 0) {
+      // the checks walkHdus makes first, with its messages
+      if (got < BLOCK) {
+        throw new InputError(`file has ${got} bytes, less than one 2880-byte FITS block`, { file: stream.file, byteOffset: got },
+          'the file is truncated or not FITS');
+      }
+      if (block.toString('latin1', 0, 9) !== 'SIMPLE  =') {
+        throw new InputError('the file does not start with SIMPLE', { file: stream.file, byteOffset: 0 }, 'this is not a FITS file');
+      }
+    }
     if (got < BLOCK) {
       throw new InputError(`header starting at byte ${start} has no END card before the end of the file`,
         { file: stream.file, byteOffset: stream.offset }, 'the file is truncated or not FITS');
@@ -50,10 +60,6 @@ export async function readStreamHdu(stream: ByteStream, index: number): Promise<
     }
   }
   const bytes = Buffer.concat(blocks);
-  const first = String.fromCharCode(...bytes.subarray(0, 9));
-  if (index === 0 && first !== 'SIMPLE  =') {
-    throw new InputError('the file does not start with SIMPLE', { file: stream.file, byteOffset: 0 }, 'this is not a FITS file');
-  }
   const h = readHeader(bytes, 0, stream.file);
   const cards = h.cards.map((c) => ({ ...c, byteOffset: c.byteOffset + start }));
   const header = new FitsHeader(cards, start, start + h.end, stream.file, h.notes);
