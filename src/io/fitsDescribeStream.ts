@@ -11,7 +11,7 @@ import type { FrameName } from '../sphere/frames.js';
 import type { Ordering } from '../sphere/nside.js';
 import { describeFitsFile } from './fitsDescribe.js';
 import type { HduSummary } from './hduSummary.js';
-import { StreamNotPossible, streamFitsFile, type MapStreamPlan } from './mapStream.js';
+import { StreamNotPossible, streamFitsFile, type MapStreamPlan, type StreamMapOptions } from './mapStream.js';
 
 /** One map of a described file, with its planes' statistics. */
 export interface DescribedMap {
@@ -30,7 +30,7 @@ export interface StreamedDescription {
 }
 
 /** Describes `path` in one streamed pass (a file the stream cannot take is read whole; same figures). */
-export async function describeFitsFileStreamed(path: string, options: { frame?: FrameName } = {}): Promise<StreamedDescription> {
+export async function describeFitsFileStreamed(path: string, options: StreamMapOptions = {}): Promise<StreamedDescription> {
   let states: Float64Array[] = [];
   const sink = {
     begin(plan: MapStreamPlan) { states = plan.planes.map(newStatsState); },
@@ -44,7 +44,7 @@ export async function describeFitsFileStreamed(path: string, options: { frame?: 
     return { file: path, bytes: r.decodedBytes, hdus: r.hdus, mapHdu: plan ? plan.hdu.index : null, maps };
   } catch (e) {
     if (!(e instanceof StreamNotPossible)) throw e;
-    const d = describeFitsFile(path, options);
+    const d = describeFitsFile(path, { frame: options.frame });
     return { file: d.file, bytes: d.bytes, hdus: d.hdus, mapHdu: d.mapHdu, maps: d.maps.map((m) => ({ column: m.column, unit: m.unit,
       nside: m.nside, ordering: m.ordering, frame: m.frame, pixels: m.planes[0].length, energiesGeV: m.energiesGeV, planes: m.planes.map(planeStats) })) };
   }
