@@ -11,7 +11,8 @@ import type { FrameName } from '../sphere/frames.js';
 import type { Ordering } from '../sphere/nside.js';
 import { describeFitsFile } from './fitsDescribe.js';
 import type { HduSummary } from './hduSummary.js';
-import { StreamNotPossible, streamFitsFile, type MapStreamPlan, type StreamMapOptions } from './mapStream.js';
+import { StreamNotPossible, streamBufferBytes, streamFitsFile, type MapStreamPlan, type StreamMapOptions } from './mapStream.js';
+import { assertFits } from '../core/memory.js';
 
 /** One map of a described file, with its planes' statistics. */
 export interface DescribedMap {
@@ -30,10 +31,13 @@ export interface StreamedDescription {
 }
 
 /** Describes `path` in one streamed pass (a file the stream cannot take is read whole; same figures). */
-export async function describeFitsFileStreamed(path: string, options: StreamMapOptions = {}): Promise<StreamedDescription> {
+export async function describeFitsFileStreamed(path: string, options: StreamMapOptions & { memoryLimitBytes?: number } = {}): Promise<StreamedDescription> {
   let states: Float64Array[] = [];
   const sink = {
-    begin(plan: MapStreamPlan) { states = plan.planes.map(newStatsState); },
+    begin(plan: MapStreamPlan) {
+      assertFits(streamBufferBytes(plan, options.blockBytes), `streaming ${path}`, 'free memory', options.memoryLimitBytes);
+      states = plan.planes.map(newStatsState);
+    },
     window(_p0: number, n: number, planes: MapArray[]) { for (let q = 0; q < planes.length; q++) statsBlock(planes[q], 0, n, states[q]); },
   };
   try {

@@ -58,6 +58,14 @@ export interface StreamMapOptions {
 
 /** Pixels per window outside the table's rows (blank ranges, partial-sky maps). */
 const WINDOW = 65536;
+
+/** Bytes the reader holds while streaming `plan` with row blocks of `blockBytes` (block, plane windows, values). */
+export function streamBufferBytes(plan: MapStreamPlan, blockBytes = 1 << 22): number {
+  const { rows, rowBytes } = plan.layout;
+  const block = Math.max(1, Math.min(rows, Math.floor(blockBytes / Math.max(1, rowBytes)))) * rowBytes;
+  const pixels = Math.max(Math.min(WINDOW, plan.npix), Math.ceil(block / Math.max(1, rowBytes)) * plan.pixelsPerRow);
+  return block + 2 * plan.planes.length * pixels * 8;
+}
 /** Largest ENERGIES table read (bytes). */
 const MAX_ENERGIES_BYTES = 1 << 26;
 
@@ -131,12 +139,12 @@ function emitBlank(sink: MapStreamSink, bufs: MapArray[], a: number, b: number):
 async function streamImplicit(stream: ByteStream, plan: MapStreamPlan, sink: MapStreamSink, blockBytes: number): Promise<void> {
   const { layout, pixelsPerRow: ppr, first, last, npix, bad, planes } = plan;
   const { rows, rowBytes } = layout;
-  const rowsPerBlock = Math.max(1, Math.floor(blockBytes / Math.max(1, rowBytes)));
+  const rowsPerBlock = Math.max(1, Math.min(rows, Math.floor(blockBytes / Math.max(1, rowBytes))));
   const block = new Uint8Array(new ArrayBuffer(Math.ceil((rowsPerBlock * rowBytes) / 8) * 8));
   const words = allFloat32(layout) ? new Float32Array(block.buffer) : null;
   // a lone float32 column of one value per pixel is used where it was decoded
   const direct = words !== null && layout.columns.length === 1 && planes.length === 1 && planes[0].float32;
-  const bufs = planes.map((s) => planeArray(s, Math.max(WINDOW, direct ? 0 : rowsPerBlock * ppr)));
+  const bufs = planes.map((s) => planeArray(s, Math.max(Math.min(WINDOW, npix), direct ? 0 : rowsPerBlock * ppr)));
   emitBlank(sink, bufs, 0, first);
   for (let r0 = 0; r0 < rows; r0 += rowsPerBlock) {
     const n = Math.min(rowsPerBlock, rows - r0);
@@ -158,11 +166,11 @@ async function streamImplicit(stream: ByteStream, plan: MapStreamPlan, sink: Map
 async function streamExplicit(stream: ByteStream, plan: MapStreamPlan, sink: MapStreamSink, blockBytes: number): Promise<void> {
   const { layout, npix, bad, planes, file } = plan;
   const { rows, rowBytes } = layout;
-  const rowsPerBlock = Math.max(1, Math.floor(blockBytes / Math.max(1, rowBytes)));
+  const rowsPerBlock = Math.max(1, Math.min(rows, Math.floor(blockBytes / Math.max(1, rowBytes))));
   const block = new Uint8Array(new ArrayBuffer(rowsPerBlock * rowBytes));
   const pix = new Float64Array(rowsPerBlock);
   const vals = planes.map((s) => planeArray(s, rowsPerBlock));
-  const win = planes.map((s) => planeArray(s, WINDOW));
+  const win = planes.map((s) => planeArray(s, Math.min(WINDOW, npix)));
   for (const x of win) x.fill(BLANK);
   let w0 = 0, prev = -1;
   const flush = () => { sink.window(w0, Math.min(WINDOW, npix - w0), win); for (const x of win) x.fill(BLANK); w0 += WINDOW; };

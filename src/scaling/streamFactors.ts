@@ -11,12 +11,13 @@
 import { statSync } from 'node:fs';
 import { sha256File } from '../io/hash.js';
 import { readMapFile } from '../io/mapFile.js';
-import { StreamNotPossible, streamMapFile, type MapStreamPlan } from '../io/mapStream.js';
+import { StreamNotPossible, streamBufferBytes, streamMapFile, type MapStreamPlan } from '../io/mapStream.js';
 import { addTemplateInMemory, templateFrame } from './ensembleFactors.js';
 import type { FactorJob, Geometry } from './factorJob.js';
 import { inPixelOrder, StreamedPlaneSums } from './streamSums.js';
 import { templateStem } from './templateFiles.js';
-import { assertMemoryFits } from './memory.js';
+import { assertMemoryFits, regionEvaluationBytes } from './memory.js';
+import { assertFits } from '../core/memory.js';
 
 /** What reducing one template file gave besides the job's rows. */
 export interface ReducedFile {
@@ -51,6 +52,7 @@ export async function reduceTemplateFile(job: FactorJob, fileIndex: number, file
   let frame: 'galactic' | 'equatorial' = 'galactic';
   const sink = {
     begin(plan: MapStreamPlan) {
+      checkStreamMemory(file, plan, opts);
       frame = templateFrame(stem, plan.frame, opts.frame);
       g = job.geometry(fileIndex, plan.nside, frame);
       const [a, ...bs] = inPixelOrder([g.a, ...g.bs], plan.ordering === 'NESTED');
@@ -75,6 +77,17 @@ export async function reduceTemplateFile(job: FactorJob, fileIndex: number, file
     });
   });
   return { file, sha256: res.sha256, templates: names, streamed: true };
+}
+
+/**
+ * Refuses, before the data streams, a job whose region weights (evaluated at
+ * the file's Nside, see memory.ts) and row blocks would not fit in memory
+ * (core/memory.ts: the limit, SKYSPAN_MEMORY_LIMIT_BYTES or the free memory).
+ */
+export function checkStreamMemory(file: string, plan: MapStreamPlan, opts: ReduceOptions): void {
+  const needed = regionEvaluationBytes(plan.nside) + streamBufferBytes(plan, opts.blockBytes);
+  assertFits(needed, `streaming template ${file} (region weights at Nside ${plan.nside} and row blocks)`,
+    `free memory, or evaluate the regions at a lower Nside (skyspan remap IN OUT --nside ${Math.max(1, plan.nside / 2)})`, opts.memoryLimitBytes);
 }
 
 /** The fallback of {@link reduceTemplateFile}: the file read whole (memory checked first), then hashed. */
