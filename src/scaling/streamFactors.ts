@@ -8,15 +8,12 @@
  * stream reader cannot take (an EXPLICIT table not in pixel order, an
  * ambiguous vector column without NSIDE) is read whole instead.
  */
-import { statSync } from 'node:fs';
-import { sha256File } from '../io/hash.js';
-import { readMapFile } from '../io/mapFile.js';
 import { StreamNotPossible, streamBufferBytes, streamMapFile, type MapStreamPlan } from '../io/mapStream.js';
 import { addTemplateInMemory, templateFrame } from './ensembleFactors.js';
 import type { FactorJob, Geometry } from './factorJob.js';
 import { inPixelOrder, StreamedPlaneSums } from './streamSums.js';
-import { templateStem } from './templateFiles.js';
-import { assertMemoryFits, regionEvaluationBytes } from './memory.js';
+import { readTemplateFiles, templateStem } from './templateFiles.js';
+import { regionEvaluationBytes } from './memory.js';
 import { assertFits } from '../core/memory.js';
 
 /** What reducing one template file gave besides the job's rows. */
@@ -90,16 +87,11 @@ export function checkStreamMemory(file: string, plan: MapStreamPlan, opts: Reduc
     `free memory, or evaluate the regions at a lower Nside (skyspan remap IN OUT --nside ${Math.max(1, plan.nside / 2)})`, opts.memoryLimitBytes);
 }
 
-/** The fallback of {@link reduceTemplateFile}: the file read whole (memory checked first), then hashed. */
+/** The fallback of {@link reduceTemplateFile}: the file read whole (memory checked first) and hashed from the same bytes. */
 function reduceWhole(job: FactorJob, fileIndex: number, file: string, opts: ReduceOptions): ReducedFile {
-  if (!/\.gz$/i.test(file)) {
-    assertMemoryFits(3 * statSync(file).size, `reading template ${file}`, NaN, opts.memoryLimitBytes);
-  }
-  const { maps } = readMapFile(file, opts.frame ? { frame: opts.frame } : {});
-  const stem = templateStem(file);
-  const names = maps.map((m) => maps.length > 1 ? `${stem}:${m.column}` : stem);
-  maps.forEach((map, j) => addTemplateInMemory(job, fileIndex, j, { name: names[j], map }, opts.frame));
-  return { file, sha256: sha256File(file), templates: names, streamed: false };
+  const ts = readTemplateFiles([file], opts);
+  ts.forEach((t, j) => addTemplateInMemory(job, fileIndex, j, { name: t.name, map: t.map }, opts.frame));
+  return { file, sha256: ts[0].sha256, templates: ts.map((t) => t.name), streamed: false };
 }
 
 /**

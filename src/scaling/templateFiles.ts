@@ -4,10 +4,11 @@
  * by name, not recursive), one template per map column. Names are the file
  * name without its extension, plus `:COLUMN` when a file holds several maps.
  */
-import { readdirSync, statSync } from 'node:fs';
+import { createHash } from 'node:crypto';
+import { readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { InputError } from '../core/errors.js';
-import { readMapFile } from '../io/mapFile.js';
+import { readMapBytes } from '../io/mapFile.js';
 import type { SkyMap } from '../maps/skyMap.js';
 import { assertMemoryFits } from './memory.js';
 
@@ -33,14 +34,15 @@ export function listTemplateFiles(paths: string[]): string[] {
   return out;
 }
 
-/** A loaded template and the file it came from. */
-export interface TemplateFromFile { name: string; map: SkyMap; file: string }
+/** A loaded template, the file it came from and that file's SHA-256 (FIPS 180-4), computed from the bytes that were decoded. */
+export interface TemplateFromFile { name: string; map: SkyMap; file: string; sha256: string }
 
 /**
  * Reads every template of `files`. Before reading an uncompressed file the
  * memory it needs (about 3 times its size: the bytes and the decoded planes
  * with headroom) is checked against the available memory; compressed files
- * are not pre-checked (their size does not bound the decoded size).
+ * are not pre-checked (their size does not bound the decoded size). Each
+ * file is read once: its hash comes from the same bytes.
  */
 export function readTemplateFiles(files: string[], opts: { frame?: 'galactic' | 'equatorial'; memoryLimitBytes?: number } = {}): TemplateFromFile[] {
   const out: TemplateFromFile[] = [];
@@ -48,9 +50,17 @@ export function readTemplateFiles(files: string[], opts: { frame?: 'galactic' | 
     if (!/\.gz$/i.test(file)) {
       assertMemoryFits(3 * statSync(file).size, `reading template ${file}`, NaN, opts.memoryLimitBytes);
     }
-    const { maps } = readMapFile(file, opts.frame ? { frame: opts.frame } : {});
+    let raw: Buffer;
+    try {
+      if (statSync(file).isDirectory()) throw Object.assign(new Error('is a directory'), { code: 'EISDIR' });
+      raw = readFileSync(file);
+    } catch (e) {
+      throw new InputError(`cannot read the file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`, { file }, 'check the path and permissions');
+    }
+    const sha256 = createHash('sha256').update(raw).digest('hex');
+    const { maps } = readMapBytes(raw, file, opts.frame ? { frame: opts.frame } : {});
     const stem = templateStem(file);
-    for (const map of maps) out.push({ name: maps.length > 1 ? `${stem}:${map.column}` : stem, map, file });
+    for (const map of maps) out.push({ name: maps.length > 1 ? `${stem}:${map.column}` : stem, map, file, sha256 });
   }
   return out;
 }
