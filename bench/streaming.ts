@@ -12,7 +12,8 @@
  * With SKYSPAN_BENCH_ENSEMBLE=M it also links the cube under M names and times the
  * ensemble with --workers 1 and --workers 2.
  *
- * Run alone: npx tsx bench/streaming.ts   (SKYSPAN_BENCH_NSIDE, SKYSPAN_BENCH_PLANES)
+ * Run alone: npx tsx bench/streaming.ts   (SKYSPAN_BENCH_NSIDE, SKYSPAN_BENCH_PLANES;
+ * SKYSPAN_BENCH_QUICK=1 times the reference and the single-threaded job only)
  */
 import { execFileSync } from 'node:child_process';
 import { closeSync, linkSync, mkdirSync, openSync, rmSync, statSync, writeFileSync, writeSync } from 'node:fs';
@@ -90,9 +91,10 @@ export async function benchStreaming(): Promise<void> {
     const job = (files: string[], extra: string[] = []) => [...cli, 'factors', '--regions', regions, '--measured', 'survey', '--target', 'strip', 'sky',
       '--templates', ...files, '--centre', '--json', ...extra];
     const ref = timed(['node', '-e', SUM_SCRIPT, cube]);
-    const version = timed([...cli, '--version']);
+    const quick = process.env.SKYSPAN_BENCH_QUICK === '1'; // the single-threaded job only (e.g. Nside 8192)
+    const version = quick ? ref : timed([...cli, '--version']);
     const single = timed(job([cube]), { SKYSPAN_SINGLE_THREAD: '1' });
-    const worker = timed(job([cube]));
+    const worker = quick ? single : timed(job([cube]));
     const f = (t: Timed) => `${t.wallSeconds.toFixed(2)} s wall, ${t.cpuSeconds.toFixed(2)} s CPU, peak RSS ${(t.maxRssBytes / 2 ** 20).toFixed(0)} MiB`;
     console.log(`reference: read once + sum (node, whole process): ${f(ref)}`);
     console.log(`skyspan --version (start-up only):                 ${f(version)}`);
