@@ -16,6 +16,7 @@ const suites: Record<string, () => Promise<unknown>> = {
   peakMemory: async () => (await import('./peakMemory.js')).benchPeakMemory(),
   cache: async () => (await import('./cache.js')).benchCache(),
   projection: async () => (await import('./projection.js')).benchProjection(),
+  streaming: async () => (await import('./streaming.js')).benchStreaming(),
 };
 
 const wanted = process.argv.slice(2);

@@ -7,7 +7,8 @@
  *
  * Caps: text inputs (CSV, YAML, JSON) {@link TEXT_INPUT_CAP_BYTES}; map files
  * (FITS, plain or gzip) {@link MAP_INPUT_CAP_BYTES}, the most a Buffer holds.
- * Map reading then also checks the memory limit (core/memory.ts).
+ * Map reading then also checks the memory limit (core/memory.ts). A streamed
+ * map (read in row blocks, never held whole) has no size cap.
  */
 import { closeSync, constants, fstatSync, openSync, readSync, type Stats } from 'node:fs';
 import { constants as bufferConstants } from 'node:buffer';
@@ -21,7 +22,7 @@ export const TEXT_INPUT_CAP_BYTES = 256 * 2 ** 20;
 export const MAP_INPUT_CAP_BYTES = Math.min(bufferConstants.MAX_LENGTH, 2 ** 33);
 
 /** What kind of file an input is, for its cap and messages. */
-export type InputKind = 'text' | 'map';
+export type InputKind = 'text' | 'map' | 'streamed map';
 
 function kindOf(s: Stats): string {
   if (s.isDirectory()) return 'a directory';
@@ -52,7 +53,7 @@ export function openInput(path: string, kind: InputKind, where: InputLocation = 
       throw new InputError(`${where.file === path ? 'is' : `${path} is`} ${kindOf(s)}, not a regular file`, where,
         s.isDirectory() ? 'give the path of a file inside it' : 'skyspan reads inputs only from regular files; save the data to a file first');
     }
-    const cap = kind === 'text' ? TEXT_INPUT_CAP_BYTES : MAP_INPUT_CAP_BYTES;
+    const cap = kind === 'text' ? TEXT_INPUT_CAP_BYTES : kind === 'map' ? MAP_INPUT_CAP_BYTES : Infinity;
     if (s.size > cap) {
       throw new InputError(`${where.file === path ? 'is' : `${path} is`} ${formatBytes(s.size)}, more than the ${formatBytes(cap)} cap for ${kind === 'text' ? 'text inputs' : 'map files'}`,
         where, kind === 'text' ? 'this is not a table or settings file skyspan can use; check the path' : 'lower its Nside or split it into one map column per file');

@@ -47,11 +47,31 @@ function foldBlock(plane: MapArray, from: number, to: number, st: Float64Array):
  * planeStats(new Float64Array([1, 2, NaN])); // { min: 1, max: 2, mean: 1.5, validCount: 2, blankCount: 1 }
  */
 export function planeStats(plane: MapArray): PlaneStats {
-  const st = new Float64Array([Infinity, -Infinity, 0, 0]);
-  const n = plane.length;
+  const st = newStatsState();
+  statsBlock(plane, 0, plane.length, st);
+  return finishStats(st);
+}
+
+/** The running state of {@link statsBlock}: min, max, sum, compensation, valid count, blank count. */
+export function newStatsState(): Float64Array {
+  return Float64Array.of(Infinity, -Infinity, 0, 0, 0, 0);
+}
+
+/**
+ * Adds plane[a..b) to the state `st` (see {@link newStatsState}) in blocks of
+ * the kernel; a plane given in consecutive pieces gives exactly the
+ * statistics of one call.
+ */
+export function statsBlock(plane: MapArray, a: number, b: number, st: Float64Array): void {
   let valid = 0;
-  for (let a = 0; a < n; a += BLOCK) valid += foldBlock(plane, a, Math.min(n, a + BLOCK), st);
-  const blank = n - valid;
+  for (let i = a; i < b; i += BLOCK) valid += foldBlock(plane, i, Math.min(b, i + BLOCK), st);
+  st[4] += valid;
+  st[5] += (b - a) - valid;
+}
+
+/** The statistics of a finished state (see {@link planeStats}). */
+export function finishStats(st: Float64Array): PlaneStats {
+  const valid = st[4], blank = st[5];
   if (valid === 0) return { min: NaN, max: NaN, mean: NaN, validCount: 0, blankCount: blank };
   return { min: st[0], max: st[1], mean: (st[2] + st[3]) / valid, validCount: valid, blankCount: blank };
 }

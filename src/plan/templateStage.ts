@@ -100,7 +100,7 @@ export async function loadRunTemplates(opts: {
         absorbed = { tAbs, survival };
         notes.push(`template '${t.name}': survival from ${sp}`);
       }
-      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'file', path: t.file, sha256: sha256File(t.file) } });
+      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'file', path: t.file, sha256: t.sha256 } });
     }
   }
   for (const path of opts.specs) {

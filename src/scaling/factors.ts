@@ -7,6 +7,7 @@ import { InputError } from '../core/errors.js';
 import { evaluateRegion } from '../regions/evaluate.js';
 import type { RegionDocument } from '../regions/types.js';
 import { computeFactorsWith, type FactorInput, type FactorResult, type RegionEvaluator } from './ensembleFactors.js';
+import type { FactorJobSettings } from './factorJob.js';
 
 /** True when region `name` is `sky` with nothing subtracted (directly or through references). */
 function isPlainSky(doc: RegionDocument, name: string, depth: number): boolean {
@@ -27,11 +28,21 @@ function isPlainSky(doc: RegionDocument, name: string, depth: number): boolean {
  * r.rows[0].kI; // mean template in 'plane' over mean in 'survey'
  */
 export function computeFactors(input: FactorInput): FactorResult {
+  const r = regionEvaluator(input);
+  return computeFactorsWith({ ...input, isWholeSky: r.isWholeSky }, r.evaluate);
+}
+
+/**
+ * The region evaluator of a job's settings: `settings.evaluate`, else the
+ * regions layer over `settings.regions`; and the whole-sky test that spares
+ * evaluating a plain `sky` region.
+ */
+export function regionEvaluator(input: FactorJobSettings): { evaluate: RegionEvaluator; isWholeSky?: (name: string) => boolean } {
   const evaluate: RegionEvaluator = input.evaluate ?? ((name, o) => {
     if (!input.regions) throw new InputError('no region document given', {}, 'pass a region file');
     return evaluateRegion(input.regions, name, { ...o, baseDir: input.baseDir });
   });
   const doc = input.regions;
   const isWholeSky = input.isWholeSky ?? (doc && !input.evaluate ? (name: string) => isPlainSky(doc, name, 0) : undefined);
-  return computeFactorsWith({ ...input, isWholeSky }, evaluate);
+  return { evaluate, isWholeSky };
 }

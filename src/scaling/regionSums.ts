@@ -53,8 +53,13 @@ export function regionSums(
   // wholeSkySums); the state is carried exactly, so the sums are those of one plain loop
   const st = new Float64Array(ST_LENGTH);
   for (let k = 0; k < n; k += SUM_BLOCK) {
-    sumBlock(plane, nside, nested, idx, fr, ex, oIdx, oFr, crossAll, k, k + SUM_BLOCK < n ? k + SUM_BLOCK : n, st);
+    sumBlock(plane, 0, nside, nested, idx, fr, ex, oIdx, oFr, crossAll, k, k + SUM_BLOCK < n ? k + SUM_BLOCK : n, st);
   }
+  finishRegionSums(st, out);
+}
+
+/** Writes the {@link S} slots of `out` from the state of {@link sumBlock}. */
+export function finishRegionSums(st: Float64Array, out: Float64Array): void {
   out[S.WF] = st[0] + st[1];
   out[S.WFT] = st[2] + st[3];
   out[S.F] = st[4] + st[5];
@@ -69,17 +74,21 @@ export function regionSums(
 /** Listed pixels per call of {@link sumBlock}. */
 const SUM_BLOCK = 16384;
 /** State of {@link sumBlock}: five (sum, compensation) pairs, four counts or sums, the merge position. */
-const ST_LENGTH = 15;
+export const ST_LENGTH = 15;
 
-/** The loop of {@link regionSums} over list entries k0..k1-1, continuing the state in st. */
-function sumBlock(plane: MapArray, nside: number, nested: boolean, idx: Uint32Array, fr: Float32Array, ex: Float32Array | null,
+/**
+ * The loop of {@link regionSums} over list entries k0..k1-1, continuing the
+ * state in st; pixel p's value is plane[p - base] (a window of a streamed
+ * plane starts at pixel `base`; 0 for a whole plane).
+ */
+export function sumBlock(plane: MapArray, base: number, nside: number, nested: boolean, idx: Uint32Array, fr: Float32Array, ex: Float32Array | null,
   oIdx: Uint32Array | null, oFr: Float32Array | null, crossAll: boolean, k0: number, k1: number, st: Float64Array): void {
   const oN = oIdx ? oIdx.length : 0;
   let sWF = st[0], cWF = st[1], sWFT = st[2], cWFT = st[3], sF = st[4], cF = st[5], sFT = st[6], cFT = st[7], sX = st[8], cX = st[9];
   let blankCount = st[10], blankF = st[11], negCount = st[12], validCount = st[13], j = st[14];
   for (let k = k0; k < k1; k++) {
     const p = idx[k];
-    const v = plane[nested ? ringToNest(nside, p) : p];
+    const v = plane[(nested ? ringToNest(nside, p) : p) - base];
     const f = fr[k];
     if (!(v - v === 0) || (v >= BLANK_LO && v <= BLANK_HI)) {
       blankCount++;
@@ -131,6 +140,11 @@ export function wholeSkySums(plane: MapArray, out: Float64Array): void {
   // the order of the additions is the same as one plain loop
   const st = new Float64Array(4); // running sum, compensation, blank count, negative count
   for (let a = 0; a < n; a += SKY_BLOCK) skyBlock(plane, a, a + SKY_BLOCK < n ? a + SKY_BLOCK : n, st);
+  finishSkySums(st, n, out);
+}
+
+/** Writes the {@link S} slots of `out` from the state of {@link skyBlock} after a pass over all `n` pixels. */
+export function finishSkySums(st: Float64Array, n: number, out: Float64Array): void {
   const blank = st[2], neg = st[3];
   const valid = n - blank, sum = st[0] + st[1];
   out[S.WF] = valid;
@@ -147,8 +161,11 @@ export function wholeSkySums(plane: MapArray, out: Float64Array): void {
 /** Pixels per call of {@link skyBlock}. */
 const SKY_BLOCK = 16384;
 
-/** Neumaier sum of the valid values of plane[a..b), continuing the state in st (see wholeSkySums). */
-function skyBlock(plane: MapArray, a: number, b: number, st: Float64Array): void {
+/**
+ * Neumaier sum of the valid values of plane[a..b), continuing the state in st
+ * (running sum, compensation, blank count, negative count; see wholeSkySums).
+ */
+export function skyBlock(plane: MapArray, a: number, b: number, st: Float64Array): void {
   let s = st[0], c = st[1], blank = st[2], neg = st[3];
   for (let p = a; p < b; p++) {
     const v = plane[p];

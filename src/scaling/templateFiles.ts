@@ -4,13 +4,21 @@
  * by name, not recursive), one template per map column. Names are the file
  * name without its extension, plus `:COLUMN` when a file holds several maps.
  */
+import { createHash } from 'node:crypto';
 import { readdirSync, statSync } from 'node:fs';
 import { basename, join } from 'node:path';
 import { InputError } from '../core/errors.js';
-import { readMapFile } from '../io/mapFile.js';
+import { assertFits } from '../core/memory.js';
+import { readInputBytes } from '../io/inputFile.js';
+import { readMapBytes } from '../io/mapFile.js';
 import type { SkyMap } from '../maps/skyMap.js';
 
 const MAP_FILE = /\.(fits|fit|fts)(\.gz)?$/i;
+
+/** A template file's name without its folder and extension (the template's name, or its prefix for a file of several maps). */
+export function templateStem(file: string): string {
+  return basename(file).replace(MAP_FILE, '');
+}
 
 /** The map files named by `paths`: files as given, folders expanded. */
 export function listTemplateFiles(paths: string[]): string[] {
@@ -27,20 +35,31 @@ export function listTemplateFiles(paths: string[]): string[] {
   return out;
 }
 
-/** A loaded template and the file it came from. */
-export interface TemplateFromFile { name: string; map: SkyMap; file: string }
+/** A loaded template, the file it came from and that file's SHA-256 (FIPS 180-4), computed from the bytes that were decoded. */
+export interface TemplateFromFile { name: string; map: SkyMap; file: string; sha256: string }
 
 /**
- * Reads every template of `files`, each checked against the memory limit by
- * readMapFile (the file's bytes, the gzip output while inflating, the decoded
- * planes; core/memory.ts).
+ * Reads every template of `files`, each opened through io/inputFile.ts (a
+ * regular file within the cap) and checked against the memory limit
+ * (core/memory.ts: the file's bytes, the gzip output while inflating, the
+ * decoded planes). Each file is read once: its hash comes from the same bytes.
  */
 export function readTemplateFiles(files: string[], opts: { frame?: 'galactic' | 'equatorial'; memoryLimitBytes?: number } = {}): TemplateFromFile[] {
   const out: TemplateFromFile[] = [];
   for (const file of files) {
-    const { maps } = readMapFile(file, { ...(opts.frame ? { frame: opts.frame } : {}), memoryLimitBytes: opts.memoryLimitBytes });
-    const stem = basename(file).replace(MAP_FILE, '');
-    for (const map of maps) out.push({ name: maps.length > 1 ? `${stem}:${map.column}` : stem, map, file });
+    // A plain file's bytes are held while its planes are decoded (checked before reading); gzip output is checked while inflating.
+    if (!/\.gz$/i.test(file)) assertFits(fileSize(file), `reading template ${file}`,
+      'lower its Nside where memory allows (skyspan remap IN OUT --nside N), or give fewer templates per run', opts.memoryLimitBytes);
+    const raw = readInputBytes(file, 'map');
+    const sha256 = createHash('sha256').update(raw).digest('hex');
+    const { maps } = readMapBytes(raw, file, { ...(opts.frame ? { frame: opts.frame } : {}), memoryLimitBytes: opts.memoryLimitBytes });
+    const stem = templateStem(file);
+    for (const map of maps) out.push({ name: maps.length > 1 ? `${stem}:${map.column}` : stem, map, file, sha256 });
   }
   return out;
+}
+
+/** The size of `file` in bytes; 0 when it cannot be stat'ed (readInputBytes then says why). */
+function fileSize(file: string): number {
+  try { return statSync(file).size; } catch { return 0; }
 }

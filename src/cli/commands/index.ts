@@ -35,6 +35,7 @@ export const COMMANDS: readonly CommandEntry[] = [
   { name: 'compare', summary: 'predict the neutrino intensity from gamma-ray points and extrapolation factors, and weigh it against a neutrino measurement', load: () => import('./compare.js') },
   { name: 'expect-gamma', summary: 'from a neutrino measurement, the hadronic gamma-ray intensity a survey footprint should see (for planning)', load: () => import('./expectGamma.js') },
   { name: 'sources', summary: 'Monte Carlo source populations: N(>S), which sources a survey resolves, unresolved-source intensities', load: () => import('./sources.js') },
+  { name: 'merge-factors', summary: 'combine the partial results of skyspan factors --shard K/N into the tables of a single run', load: () => import('./mergeFactors.js') },
   { name: 'run', summary: 'run a plan file: factors, conversion, comparison, pictures, tables, report and provenance in one folder', load: () => import('./run.js') },
   { name: 'cache', summary: 'show the cache of skyspan run (location, entries, size) and remove all entries or old ones', load: () => import('./cache.js') },
 ];

@@ -3,31 +3,27 @@
  * columns and units); for a HEALPix map its Nside, ordering, frame, indexing,
  * energy planes, and per column and plane the min/mean/max of the non-blank
  * pixels, the blank count and the fraction of the sky covered. A file without
- * a HEALPix map is described, not refused.
+ * a HEALPix map is described, not refused. The file is streamed once, in
+ * bounded memory whatever its size.
  */
 import type { Command } from 'commander';
-import { describeFitsFile, type FitsDescription } from '../../io/mapFile.js';
-import { planeStats } from '../../maps/stats.js';
-import type { SkyMap } from '../../maps/skyMap.js';
+import { describeFitsFileStreamed, type DescribedMap, type StreamedDescription } from '../../io/fitsDescribeStream.js';
 import type { CliIo } from '../main.js';
 
 /** Per-plane figures shown by info. */
 interface PlaneInfo { energyGeV: number | null; min: number; mean: number; max: number; blankCount: number; validCount: number; skyFraction: number }
 
-function mapInfo(m: SkyMap) {
-  const planes: PlaneInfo[] = m.planes.map((p, k) => {
-    const s = planeStats(p);
-    return { energyGeV: m.energiesGeV ? m.energiesGeV[k] : null, min: s.min, mean: s.mean, max: s.max,
-      blankCount: s.blankCount, validCount: s.validCount, skyFraction: s.validCount / p.length };
-  });
+function mapInfo(m: DescribedMap) {
+  const planes: PlaneInfo[] = m.planes.map((s, k) => ({ energyGeV: m.energiesGeV ? m.energiesGeV[k] : null, min: s.min, mean: s.mean, max: s.max,
+    blankCount: s.blankCount, validCount: s.validCount, skyFraction: s.validCount / m.pixels }));
   return { column: m.column, unit: m.unit, nside: m.nside, ordering: m.ordering, frame: m.frame,
-    pixels: m.planes[0].length, energiesGeV: m.energiesGeV ? Array.from(m.energiesGeV) : null, planes };
+    pixels: m.pixels, energiesGeV: m.energiesGeV ? Array.from(m.energiesGeV) : null, planes };
 }
 
 const g = (x: number): string => !Number.isFinite(x) ? 'n/a'
   : x !== 0 && (Math.abs(x) < 1e-3 || Math.abs(x) >= 1e6) ? x.toExponential(5) : String(Number(x.toPrecision(6)));
 
-function text(d: FitsDescription, maps: ReturnType<typeof mapInfo>[]): string {
+function text(d: StreamedDescription, maps: ReturnType<typeof mapInfo>[]): string {
   const lines = [`${d.file}: ${d.bytes} bytes, ${d.hdus.length} HDU${d.hdus.length === 1 ? '' : 's'}`];
   for (const h of d.hdus) {
     const size = h.kind === 'bintable' || h.kind === 'table' ? `${h.rows} rows of ${h.dims[0]} bytes`
@@ -60,8 +56,8 @@ export function register(program: Command, io: CliIo): void {
     .argument('<file>', 'FITS file (.fits or .fits.gz)')
     .option('--json', 'print machine-readable JSON')
     .addHelpText('after', '\nExample:\n  skyspan info examples/demo/demo-map.fits --json\n')
-    .action((file: string, opts: { json?: boolean }) => {
-      const d = describeFitsFile(file);
+    .action(async (file: string, opts: { json?: boolean }) => {
+      const d = await describeFitsFileStreamed(file);
       const maps = d.maps.map(mapInfo);
       if (opts.json) io.out(JSON.stringify({ file: d.file, bytes: d.bytes, hdus: d.hdus, mapHdu: d.mapHdu, maps }, null, 2) + '\n');
       else io.out(text(d, maps));

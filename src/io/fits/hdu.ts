@@ -35,8 +35,11 @@ function describeKind(xt: string): HduKind {
   return 'other';
 }
 
-/** Reads the mandatory keywords of an HDU header and checks its data fits the file. */
-function locate(bytes: Uint8Array, header: FitsHeader, index: number, file: string): Hdu {
+/**
+ * Reads the mandatory keywords of an HDU header and checks its data fits in
+ * `fileLength` bytes (Infinity when the length is not known yet, as in a stream).
+ */
+export function locateHdu(fileLength: number, header: FitsHeader, index: number, file: string): Hdu {
   const notes = [...header.notes];
   let xtension = 'PRIMARY';
   if (index === 0) {
@@ -72,9 +75,9 @@ function locate(bytes: Uint8Array, header: FitsHeader, index: number, file: stri
   }
   const dataBytes = (Math.abs(bitpix) / 8) * gcount * (pcount + elements);
   const dataStart = header.end;
-  if (!Number.isSafeInteger(dataBytes) || dataStart + dataBytes > bytes.length) {
+  if (!Number.isSafeInteger(dataBytes) || dataStart + dataBytes > fileLength) {
     throw new InputError(
-      `HDU ${index} declares ${dataBytes} data bytes from byte ${dataStart}, but the file ends at byte ${bytes.length}`,
+      `HDU ${index} declares ${dataBytes} data bytes from byte ${dataStart}, but the file ends at byte ${fileLength}`,
       { file, byteOffset: dataStart, keyword: naxis >= 2 ? 'NAXIS2' : 'NAXIS' },
       'the file is truncated or its NAXISn values are wrong');
   }
@@ -111,7 +114,7 @@ export function walkHdus(bytes: Uint8Array, file: string): Hdu[] {
       break;
     }
     const header = readHeader(bytes, pos, file);
-    const hdu = locate(bytes, header, hdus.length, file);
+    const hdu = locateHdu(bytes.length, header, hdus.length, file);
     hdus.push(hdu);
     const padded = Math.ceil(hdu.dataBytes / BLOCK) * BLOCK;
     if (hdu.dataStart + padded > bytes.length) {
