@@ -6,6 +6,7 @@
  */
 import type { SpectrumPoints } from '../physics/points.js';
 import type { NeutrinoMeasurement } from './measurement.js';
+import { formatCsv } from '../io/csvWrite.js';
 import { splitNormalQuantile } from './splitNormal.js';
 import type { Prediction } from './predict.js';
 import { flavourFactor, type PointsComparison, type ReferenceComparison } from './tension.js';
@@ -93,14 +94,9 @@ export function summaryRows(r: ComparisonReport): Record<string, string | number
   return rows;
 }
 
-function csvCell(v: string | number): string {
-  const s = typeof v === 'number' ? fmt(v) : v;
-  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
 function toCsv(rows: Record<string, string | number>[], head: string[]): string {
   const cols = Object.keys(rows[0] ?? {});
-  return [...head.map((h) => `# ${h}`), cols.join(','), ...rows.map((r) => cols.map((c) => csvCell(r[c])).join(','))].join('\n') + '\n';
+  return formatCsv(cols, rows.map((r) => cols.map((c) => r[c])), { comments: head, number: fmt });
 }
 
 function toMd(rows: Record<string, string | number>[]): string[] {

@@ -8,6 +8,7 @@ import type { FactorResult } from './ensembleFactors.js';
 import type { FactorRow } from './factorRow.js';
 import type { SummaryRow } from './summary.js';
 import { provenanceLines, type FactorProvenance } from './provenance.js';
+import { formatCsv } from '../io/csvWrite.js';
 
 /** Output formats of a factor table. */
 export type TableFormat = 'csv' | 'md' | 'json' | 'tex';
@@ -46,10 +47,6 @@ const SUM_COLS: Col<SummaryRow>[] = [
   { key: 'weighted', label: 'weighted', tex: 'weighted', get: (r) => (r.weighted ? 'yes' : 'no') },
 ];
 
-function csvField(v: string | number | null): string {
-  const s = v === null ? '' : String(v);
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
 function short(v: string | number | null): string {
   if (v === null) return '';
   if (typeof v === 'string') return v;
@@ -66,10 +63,7 @@ function texNumber(v: string | number | null): string {
 }
 
 function csv<R>(cols: Col<R>[], rows: R[], header: string[]): string {
-  const lines = header.map((l) => `# ${l}`);
-  lines.push(cols.map((c) => c.key).join(','));
-  for (const r of rows) lines.push(cols.map((c) => csvField(c.get(r))).join(','));
-  return lines.join('\n') + '\n';
+  return formatCsv(cols.map((c) => c.key), rows.map((r) => cols.map((c) => c.get(r))), { comments: header });
 }
 function md<R>(cols: Col<R>[], rows: R[]): string[] {
   const esc = (s: string) => s.replace(/\|/g, '\\|');

@@ -6,6 +6,7 @@
  */
 import type { Command } from 'commander';
 import { UsageError } from '../../core/errors.js';
+import { formatCsv } from '../../io/csvWrite.js';
 import { convertSpectrum, type ConversionResult } from '../../physics/hadronic/convert.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
 import { readSpectrumPoints, type SpectrumPoints } from '../../physics/points.js';
@@ -83,7 +84,7 @@ function action(file: string, o: Options, io: CliIo): void {
   if (o.out) {
     // Every output is checked before any is written, so a refused job writes nothing.
     writeOutputs([
-      { path: `${o.out}.csv`, text: info.map((l) => `# ${l}\n`).join('') + [header, ...rows].map((c) => c.join(',')).join('\n') + '\n' },
+      { path: `${o.out}.csv`, text: formatCsv(header, rows, { comments: info }) },
       { path: `${o.out}.md`, text: info.map((l) => `- ${l}\n`).join('') + '\n| ' + header.join(' | ') + ' |\n|' + header.map(() => ' --- |').join('')
         + '\n' + rows.map((c) => '| ' + c.join(' | ') + ' |').join('\n') + '\n' },
       { path: `${o.out}.json`, text: JSON.stringify(doc, null, 2) + '\n' },

@@ -8,6 +8,7 @@
 import type { Command } from 'commander';
 import { join } from 'node:path';
 import { UsageError } from '../../core/errors.js';
+import { formatCsv } from '../../io/csvWrite.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
 import { readFactors } from '../../compare/factorsFile.js';
 import { readMeasurement } from '../../compare/measurement.js';
@@ -39,7 +40,7 @@ function action(o: Options, io: CliIo): void {
   const doc = { neutrino: o.neutrino, factors: o.factors, target: fac.target ?? null, columns: header,
     rows: rows.map((c) => c.map((v) => (v === '' ? null : Number(v)))), assumptions: r.assumptions, notes: r.notes, warnings: r.warnings, samples: r.samples, seed: r.seed };
   const files: { name: string; text: string }[] = [];
-  if (formats.includes('csv')) files.push({ name: 'expected-gamma.csv', text: info.map((l) => `# ${l}\n`).join('') + [header, ...rows].map((c) => c.join(',')).join('\n') + '\n' });
+  if (formats.includes('csv')) files.push({ name: 'expected-gamma.csv', text: formatCsv(header, rows, { comments: info }) });
   if (formats.includes('md')) files.push({ name: 'expected-gamma.md', text: '# Expected gamma rays in the survey footprint\n\n' + info.map((l) => `- ${l}\n`).join('')
     + `\n| ${header.join(' | ')} |\n|${header.map(() => ' --- |').join('')}\n` + rows.map((c) => `| ${c.join(' | ')} |`).join('\n') + '\n' });
   if (formats.includes('json')) files.push({ name: 'expected-gamma.json', text: JSON.stringify(doc, null, 2) + '\n' });
