@@ -133,7 +133,7 @@ export function renderSpectrumSvg(data: SpectrumPlotData, options: SpectrumSvgOp
       }
       const lo = v - p.errLow[i], hi = v + p.errHigh[i];
       const pyLo = lo > 0 ? Y(lo) : y0, pyHi = Y(hi);
-      out.push(`<line x1="${px}" y1="${fmt(pyLo)}" x2="${px}" y2="${fmt(pyHi)}" stroke="${colour}" stroke-width="1.4"/>`);
+      out.push(`<line data-role="error-bar" x1="${px}" y1="${fmt(pyLo)}" x2="${px}" y2="${fmt(pyHi)}" stroke="${colour}" stroke-width="1.4"/>`);
       out.push(p.kind === 'gamma'
         ? `<circle data-role="point" cx="${px}" cy="${fmt(py)}" r="4.2" fill="${colour}" stroke="#ffffff" stroke-width="1"/>`
         : `<rect data-role="point" x="${fmt(X(e) - 4)}" y="${fmt(py - 4)}" width="8" height="8" fill="${colour}" stroke="#ffffff" stroke-width="1"/>`);
