@@ -13,6 +13,7 @@ import { finishedOutputs, onTemporaryFileEvent, pendingTemporaryFiles, removePen
   type TemporaryFileEvent } from '../io/atomicWrite.js';
 import { registerCommands } from './commands/index.js';
 import { VERSION } from '../version.js';
+import { commanderErrorLine } from './errorLine.js';
 import { fileURLToPath } from 'node:url';
 
 /** Where the CLI writes; tests replace these to capture output. */
@@ -35,8 +36,7 @@ export function buildProgram(io: CliIo): Command {
     .version(VERSION, '-V, --version')
     .option('--debug', 'show stack traces of errors')
     .exitOverride()
-    .configureOutput({ writeOut: io.out, writeErr: io.err })
-    .showHelpAfterError('(run with --help for usage)');
+    .configureOutput({ writeOut: io.out, writeErr: io.err, outputError: (text, write) => write(commanderErrorLine(text)) });
   registerCommands(program, io);
   return program;
 }

@@ -63,12 +63,14 @@ describe.skipIf(!have)('report in headless Chromium', () => {
       for (const name of ['spectrum.svg', 'forecast.svg']) {
         const fig = await browser.newPage();
         await fig.setContent(readFileSync(join(out, name), 'utf8'));
-        const boxes = await fig.evaluate(() => {
-          const box = (e: Element) => { const r = e.getBoundingClientRect(); return { l: r.left, r: r.right, t: r.top, b: r.bottom }; };
-          const legend = document.querySelector('[data-role="legend"]');
-          const data = [...document.querySelectorAll('[data-role="band"],[data-role="band-central"],[data-role="point"],[data-role="upper-limit"],[data-role="error-bar"]')];
-          return { legend: legend ? box(legend) : null, data: data.map(box) };
-        });
+        type Box = { l: number; r: number; t: number; b: number };
+        const boxesOf = (sel: string) => fig.$$eval(sel, (els) => els.map((e) => {
+          const r = (e as unknown as { getBoundingClientRect(): { left: number; right: number; top: number; bottom: number } }).getBoundingClientRect();
+          return { l: r.left, r: r.right, t: r.top, b: r.bottom } as Box;
+        }));
+        const legends = await boxesOf('[data-role="legend"]');
+        const boxes = { legend: legends[0] ?? null,
+          data: await boxesOf('[data-role="band"],[data-role="band-central"],[data-role="point"],[data-role="upper-limit"],[data-role="error-bar"]') };
         await fig.close();
         expect(boxes.legend).not.toBeNull();
         expect(boxes.data.length).toBeGreaterThan(0);

@@ -2,7 +2,8 @@
  * `skyspan info FILE`: what a FITS file holds. Every HDU (kind, name, size,
  * columns and units); for a HEALPix map its Nside, ordering, frame, indexing,
  * energy planes, and per column and plane the min/mean/max of the non-blank
- * pixels, the blank count and the fraction of the sky covered. A file without
+ * pixels, the blank count, and the fractions of the sky that are not blank
+ * and that are non-zero (for a mask, the sky it covers at all). A file without
  * a HEALPix map is described, not refused.
  */
 import type { Command } from 'commander';
@@ -12,13 +13,25 @@ import type { SkyMap } from '../../maps/skyMap.js';
 import type { CliIo } from '../main.js';
 
 /** Per-plane figures shown by info. */
-interface PlaneInfo { energyGeV: number | null; min: number; mean: number; max: number; blankCount: number; validCount: number; skyFraction: number }
+interface PlaneInfo {
+  energyGeV: number | null; min: number; mean: number; max: number; blankCount: number; validCount: number;
+  /** Fraction of the sky's pixels that are not blank. */
+  validSkyFraction: number;
+  /** Fraction of the sky's pixels with a non-zero value (for a mask: the sky it covers at all). */
+  nonZeroSkyFraction: number;
+}
+
+function nonZeroCount(p: ArrayLike<number>): number {
+  let n = 0;
+  for (let i = 0; i < p.length; i++) { const v = p[i]; if (v !== 0 && v === v) n++; }
+  return n;
+}
 
 function mapInfo(m: SkyMap) {
   const planes: PlaneInfo[] = m.planes.map((p, k) => {
     const s = planeStats(p);
     return { energyGeV: m.energiesGeV ? m.energiesGeV[k] : null, min: s.min, mean: s.mean, max: s.max,
-      blankCount: s.blankCount, validCount: s.validCount, skyFraction: s.validCount / p.length };
+      blankCount: s.blankCount, validCount: s.validCount, validSkyFraction: s.validCount / p.length, nonZeroSkyFraction: nonZeroCount(p) / p.length };
   });
   return { column: m.column, unit: m.unit, nside: m.nside, ordering: m.ordering, frame: m.frame,
     pixels: m.planes[0].length, energiesGeV: m.energiesGeV ? Array.from(m.energiesGeV) : null, planes };
@@ -44,9 +57,10 @@ function text(d: FitsDescription, maps: ReturnType<typeof mapInfo>[]): string {
   for (const m of maps) {
     const cube = m.energiesGeV ? `, ${m.planes.length} energy planes` : '';
     lines.push(`  map ${m.column}${m.unit ? ` [${m.unit}]` : ''}${cube}`);
-    for (const p of m.planes) {
-      const e = p.energyGeV === null ? '' : `at ${g(p.energyGeV)} GeV: `;
-      lines.push(`    ${e}min ${g(p.min)}, mean ${g(p.mean)}, max ${g(p.max)}; ${p.blankCount} blank of ${m.pixels}; sky covered ${(100 * p.skyFraction).toFixed(2)}%`);
+    for (const [k, p] of m.planes.entries()) {
+      // Planes are numbered from 1, with their energy when the file gives it.
+      const e = m.planes.length > 1 || p.energyGeV !== null ? `plane ${k + 1}${p.energyGeV === null ? '' : ` at ${g(p.energyGeV)} GeV`}: ` : '';
+      lines.push(`    ${e}min ${g(p.min)}, mean ${g(p.mean)}, max ${g(p.max)}; ${p.blankCount} blank of ${m.pixels}; not blank on ${(100 * p.validSkyFraction).toFixed(2)}% of the sky, non-zero on ${(100 * p.nonZeroSkyFraction).toFixed(2)}%`);
     }
   }
   return lines.join('\n') + '\n';
