@@ -38,8 +38,8 @@ export interface SkyImageOptions {
   colourMap?: ColourMapName;
   /** Display frame (default: the map's frame; 'galactic' for a map of unknown frame). */
   frame?: 'galactic' | 'equatorial';
-  /** Longitude at the centre of a Mollweide picture (default 0: the Galactic centre, or RA 0). */
-  centreLonDeg?: number;
+  /** Longitude in the middle of a Mollweide picture (default 0: the Galactic centre, or RA 0). */
+  viewLonDeg?: number;
   zoom?: ZoomWindowDeg;
   /** Graticule on/off or its steps (default: 60/30 deg on Mollweide, automatic on a zoom). */
   graticule?: boolean | { lonStepDeg: number; latStepDeg: number };
@@ -101,7 +101,7 @@ export function renderSkyMap(map: SkyMap, options: SkyImageOptions = {}): SkyIma
     const pad = Math.round(58 * u);
     const pw = 2 * Math.floor((W - 2 * pad) / 2);
     ox = Math.round((W - pw) / 2);
-    view = mollweideView(pw, options.centreLonDeg ?? 0);
+    view = mollweideView(pw, options.viewLonDeg ?? 0);
     belowArea = Math.round(26 * u);
   } else {
     const left = Math.round(70 * u), right = Math.round(30 * u);

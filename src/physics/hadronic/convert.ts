@@ -80,7 +80,7 @@ export function convertSpectrum(points: SpectrumPoints, options: ConversionOptio
   const direction = options.direction ?? 'gammaToNeutrino', method = options.method ?? 'kab2006';
   const channel = options.channel ?? 'pp', ratio = options.flavourRatio ?? FLAVOUR_RATIO_EARTH;
   if (method === 'kab2006' && channel !== 'pp') {
-    throw new InputError('the KAB 2006 method is for pp collisions only', { keyPath: 'channel' }, 'use --method rule for p-gamma');
+    throw new InputError('the KAB 2006 method is for pp collisions only', { keyPath: 'channel' }, 'use the kpi method (--method kpi) for p-gamma');
   }
   const n = points.value.length, toNu = direction === 'gammaToNeutrino';
   const energy = new Float64Array(n);
