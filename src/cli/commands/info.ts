@@ -9,6 +9,7 @@
 import type { Command } from 'commander';
 import { describeFitsFile, type FitsDescription } from '../../io/mapFile.js';
 import { planeStats } from '../../maps/stats.js';
+import { isBlank } from '../../maps/blank.js';
 import type { SkyMap } from '../../maps/skyMap.js';
 import type { CliIo } from '../main.js';
 
@@ -23,7 +24,7 @@ interface PlaneInfo {
 
 function nonZeroCount(p: ArrayLike<number>): number {
   let n = 0;
-  for (let i = 0; i < p.length; i++) { const v = p[i]; if (v !== 0 && v === v) n++; }
+  for (let i = 0; i < p.length; i++) { const v = p[i]; if (v !== 0 && !isBlank(v)) n++; }
   return n;
 }
 
