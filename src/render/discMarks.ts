@@ -1,7 +1,7 @@
 /**
  * Mask discs drawn as circles over a sky picture: each disc's rim is traced on
  * the sphere (48 points at its angular radius) and projected; a disc whose
- * drawn radius would be under `minRadiusPx` is drawn as a circle of that
+ * drawn radius would be under `minRadiusPx` (5 px on a 1200 px picture, scaled, never under 3 px) is drawn as a circle of that
  * radius around its projected centre instead, so that a 0.5 deg disc on a
  * full-sky picture is still seen. Dark halo under a light line, like the
  * region outlines.
@@ -19,12 +19,12 @@ const N = 49;
 
 /** Draws every disc of `discs` (given in `frame`) on the picture area (see module doc). */
 export function drawDiscMarks(raster: Raster, view: SkyView, at: AreaPlacement, discs: readonly DiscMark[], frame: FrameName,
-  displayFrame: FrameName, colour = 0x7fffd4, minRadiusPx = 4): void {
+  displayFrame: FrameName, colour = 0x7fffd4, minRadiusPx = 5): void {
   if (!discs.length) return;
   const m = rotationMatrix(frame, displayFrame);
   const xs = new Float64Array(N), ys = new Float64Array(N), p = new Float64Array(2);
   const line = createLayer(raster.width, raster.height), halo = createLayer(raster.width, raster.height);
-  const lw = Math.max(1, 1.2 * at.u), minR = minRadiusPx * at.u;
+  const lw = Math.max(1, 1.2 * at.u), minR = Math.max(3, minRadiusPx * at.u);
   const toDisplay = (x: number, y: number, z: number, out: Float64Array): boolean => {
     const xr = m[0] * x + m[1] * y + m[2] * z, yr = m[3] * x + m[4] * y + m[5] * z, zr = m[6] * x + m[7] * y + m[8] * z;
     return view.project(Math.atan2(yr, xr), Math.atan2(zr, Math.hypot(xr, yr)), out);
