@@ -23,7 +23,7 @@ const teV = (eGeV: number) => Number((eGeV / 1e3).toPrecision(4));
  * The measured gamma-ray intensity scaled to each target: per target and per measured point (upper limits
  * left out), I_A, the ensemble's median and 16-84 % of k_I at the template plane nearest the point's energy,
  * and of I_B = k_I I_A. Quantiles commute with a positive factor, so I_B's are I_A times k_I's (the spread is
- * the templates' only; I_A's own error is beside it).
+ * the templates' only; I_A's own error is in the points file). Without points, k_I alone per plane.
  */
 export function scaledTable(factors: FactorResult, points: SpectrumPoints | null): TableData {
   const headings = ['target', 'E (TeV)', 'I_A (GeV^-1 cm^-2 s^-1 sr^-1)', 'k_I median', 'k_I 16 %', 'k_I 84 %', 'I_B median', 'I_B 16 %', 'I_B 84 %'];
@@ -35,8 +35,7 @@ export function scaledTable(factors: FactorResult, points: SpectrumPoints | null
     const nearest = (eGeV: number | null) => (eGeV === null ? sums[0]
       : sums.reduce((b, s) => (s.energyGeV !== null && b.energyGeV !== null && Math.abs(Math.log(s.energyGeV / eGeV)) < Math.abs(Math.log(b.energyGeV / eGeV)) ? s : b)));
     if (!points) {
-      const s = sums[0];
-      rows.push([target, s.energyGeV === null ? null : teV(s.energyGeV), null, s.median, s.p16, s.p84, null, null, null]);
+      for (const s of sums) rows.push([target, s.energyGeV === null ? null : teV(s.energyGeV), s.median, s.p16, s.p84]);
       continue;
     }
     for (let i = 0; i < points.energyGeV.length; i++) {
@@ -45,7 +44,8 @@ export function scaledTable(factors: FactorResult, points: SpectrumPoints | null
       rows.push([target, teV(e), v, s.median, s.p16, s.p84, v * s.median, v * s.p16, v * s.p84]);
     }
   }
-  return { headings, keys, rows };
+  // Without measured points (a forecast alone) the table holds k_I only.
+  return points ? { headings, keys, rows } : { headings: headings.filter((_, k) => k !== 2 && k < 6), keys: keys.filter((_, k) => k !== 2 && k < 6), rows };
 }
 
 /** Survival table: template and the mean survival probability at each gamma-ray energy. */
