@@ -105,13 +105,14 @@ function toMd(rows: Record<string, string | number>[]): string[] {
   return [`| ${cols.join(' | ')} |`, `| ${cols.map(() => '---').join(' | ')} |`, ...rows.map((r) => `| ${cols.map((c) => cell(r[c])).join(' | ')} |`)];
 }
 
-/** Spectrum table: per energy, each component's p16/p50/p84 and each method's central value. */
+/** Spectrum table: per energy, each component's 16 %, median and 84 % and each method's central value. */
 export function spectrumRows(r: ComparisonReport): Record<string, string | number>[] {
   const d = spectrumPlotData(r);
   return d.energiesGeV.map((e, j) => {
     const row: Record<string, string | number> = { energyGeV: e };
-    for (const [k, v] of Object.entries(d.predicted)) { row[`${k}_p16`] = v.p16[j]; row[`${k}_p50`] = v.p50[j]; row[`${k}_p84`] = v.p84[j]; }
-    for (const [k, v] of Object.entries(d.methods)) row[`method_${k}`] = v[j];
+    // camelCase keys, as in every CSV and JSON skyspan writes (README, "Names")
+    for (const [k, v] of Object.entries(d.predicted)) { row[`${k}P16`] = v.p16[j]; row[`${k}Median`] = v.p50[j]; row[`${k}P84`] = v.p84[j]; }
+    for (const [k, v] of Object.entries(d.methods)) row[`method${k[0].toUpperCase()}${k.slice(1)}`] = v[j];
     return row;
   });
 }

@@ -32,7 +32,8 @@ function action(o: Options, io: CliIo): void {
   const fac = readFactors(o.factors, { target: o.target, energyGeV: m.kind === 'points' ? undefined : 2 * m.e0GeV });
   const r = expectedGamma({ measurement: m, factors: fac.factors, methods, channel: o.channel as 'pp' | 'pgamma',
     flavourRatio: parseFlavourRatio(o.flavourRatio), samples, seed });
-  const header = ['energyGeV', ...r.components.flatMap((c) => [`${c.name}_p16`, `${c.name}_p50`, `${c.name}_p84`]), ...r.methods.map((x) => `method_${x.id}`)];
+  const header = ['energyGeV', ...r.components.flatMap((c) => [`${c.name}P16`, `${c.name}Median`, `${c.name}P84`]),
+    ...r.methods.map((x) => `method${x.id[0].toUpperCase()}${x.id.slice(1)}`)];
   const rows = Array.from(r.energiesGammaGeV, (e, j) => [fmt(e), ...r.components.flatMap((c) => [c.atEnergies[j].p16, c.atEnergies[j].median, c.atEnergies[j].p84].map(fmt)),
     ...r.methods.map((x) => fmt(x.atEnergies[j]))]);
   const info = [`expected gamma-ray intensity in the survey footprint, GeV^-1 cm^-2 s^-1 sr^-1; ${r.samples} samples, seed ${r.seed}`,
