@@ -14,6 +14,7 @@ import { finishedOutputs, onTemporaryFileEvent, pendingTemporaryFiles, removePen
 import { findCommand, registerCommands } from './commands/index.js';
 import { interruptMessage, runAsProgram, type WorkerMessage } from './program.js';
 import { VERSION } from '../version.js';
+import { commanderErrorLine } from './errorLine.js';
 import { fileURLToPath } from 'node:url';
 
 export { interruptMessage, runAsProgram };
@@ -41,8 +42,7 @@ export async function buildProgram(io: CliIo, argv: readonly string[] = []): Pro
     .version(VERSION, '-V, --version')
     .option('--debug', 'show stack traces of errors')
     .exitOverride()
-    .configureOutput({ writeOut: io.out, writeErr: io.err })
-    .showHelpAfterError('(run with --help for usage)');
+    .configureOutput({ writeOut: io.out, writeErr: io.err, outputError: (text, write) => write(commanderErrorLine(text)) });
   await registerCommands(program, io, findCommand(argv));
   return program;
 }

@@ -17,10 +17,10 @@ export function parseInteger(text: string, name: string): number {
   return v;
 }
 
-/** Parses a --methods list: kab and/or kpi ('rule' is taken as kpi), in order, without repeats. */
+/** Parses a --methods list: kab and/or kpi (the earlier spelling 'rule' is taken as kpi), in order, without repeats. */
 export function parseMethods(text: string): MethodId[] {
   const ms = text.split(',').map((s) => s.trim()).filter(Boolean).map((m) => (m === 'rule' ? 'kpi' : m));
-  for (const m of ms) if (m !== 'kab' && m !== 'kpi') throw new UsageError(`--methods has '${m}', expected kab and/or kpi (or rule)`);
+  for (const m of ms) if (m !== 'kab' && m !== 'kpi') throw new UsageError(`--methods has '${m}', expected kab and/or kpi`);
   if (ms.length === 0) throw new UsageError('--methods needs kab, kpi or both');
   return [...new Set(ms)] as MethodId[];
 }

@@ -6,6 +6,7 @@
  */
 import type { SpectrumPoints } from '../physics/points.js';
 import type { NeutrinoMeasurement } from './measurement.js';
+import { formatCsv } from '../io/csvWrite.js';
 import { splitNormalQuantile } from './splitNormal.js';
 import type { Prediction } from './predict.js';
 import { describePValue, flavourFactor, type PointsComparison, type ReferenceComparison } from './tension.js';
@@ -104,14 +105,9 @@ export function summaryRows(r: ComparisonReport): Record<string, string | number
   return rows;
 }
 
-function csvCell(v: string | number): string {
-  const s = typeof v === 'number' ? fmt(v) : v;
-  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
-
 function toCsv(rows: Record<string, string | number>[], head: string[]): string {
   const cols = Object.keys(rows[0] ?? {});
-  return [...head.map((h) => `# ${h}`), cols.join(','), ...rows.map((r) => cols.map((c) => csvCell(r[c])).join(','))].join('\n') + '\n';
+  return formatCsv(cols, rows.map((r) => cols.map((c) => r[c])), { comments: head, number: fmt });
 }
 
 function toMd(rows: Record<string, string | number>[]): string[] {
@@ -120,13 +116,14 @@ function toMd(rows: Record<string, string | number>[]): string[] {
   return [`| ${cols.join(' | ')} |`, `| ${cols.map(() => '---').join(' | ')} |`, ...rows.map((r) => `| ${cols.map((c) => cell(r[c])).join(' | ')} |`)];
 }
 
-/** Spectrum table: per energy, each component's p16/p50/p84 and each method's central value. */
+/** Spectrum table: per energy, each component's 16 %, median and 84 % and each method's central value. */
 export function spectrumRows(r: ComparisonReport): Record<string, string | number>[] {
   const d = spectrumPlotData(r);
   return d.energiesGeV.map((e, j) => {
     const row: Record<string, string | number> = { energyGeV: e };
-    for (const [k, v] of Object.entries(d.predicted)) { row[`${k}_p16`] = v.p16[j]; row[`${k}_p50`] = v.p50[j]; row[`${k}_p84`] = v.p84[j]; }
-    for (const [k, v] of Object.entries(d.methods)) row[`method_${k}`] = v[j];
+    // camelCase keys, as in every CSV and JSON skyspan writes (README, "Names")
+    for (const [k, v] of Object.entries(d.predicted)) { row[`${k}P16`] = v.p16[j]; row[`${k}Median`] = v.p50[j]; row[`${k}P84`] = v.p84[j]; }
+    for (const [k, v] of Object.entries(d.methods)) row[`method${k[0].toUpperCase()}${k.slice(1)}`] = v[j];
     return row;
   });
 }

@@ -11,8 +11,10 @@ export interface InputLocation {
   file?: string;
   /** Key path in a YAML/JSON document, e.g. `regions.plane.lonDeg[1]`. */
   keyPath?: string;
-  /** 1-based row in a CSV file (header is row 1). */
+  /** 1-based row of a table (e.g. a FITS binary table). */
   row?: number;
+  /** 1-based line in a text file (CSV), counting comment and blank lines. */
+  line?: number;
   /** Byte offset in a binary file. */
   byteOffset?: number;
   /** Header keyword or column name in a FITS file. */
@@ -34,6 +36,7 @@ function formatLocation(loc: InputLocation): string {
   if (loc.file !== undefined) parts.push(loc.file);
   if (loc.keyPath !== undefined) parts.push(`key ${loc.keyPath}`);
   if (loc.row !== undefined) parts.push(`row ${loc.row}`);
+  if (loc.line !== undefined) parts.push(`line ${loc.line}`);
   if (loc.keyword !== undefined) parts.push(`keyword ${loc.keyword}`);
   if (loc.byteOffset !== undefined) parts.push(`byte ${loc.byteOffset}`);
   return parts.join(', ');

@@ -10,6 +10,8 @@ import { readInputText } from './inputFile.js';
 /** A parsed CSV: header fields, data rows and the file line where each row starts. */
 export interface CsvTable {
   readonly header: string[];
+  /** 1-based file line of the header. */
+  readonly headerLine: number;
   readonly rows: string[][];
   readonly rowNumbers: number[];
 }
@@ -47,7 +49,7 @@ export function parseCsv(text: string, file: string): CsvTable {
       if (c === '"' && field.trim() === '' && !quoted) {
         quoted = true; field = ''; i++;
         for (;;) {
-          if (i >= n) throw new InputError('a quoted field has no closing quote', { file, row: startLine });
+          if (i >= n) throw new InputError('a quoted field has no closing quote', { file, line: startLine });
           if (text[i] === '"') {
             if (text[i + 1] === '"') { field += '"'; i += 2; continue; }
             i++; break;
@@ -57,7 +59,7 @@ export function parseCsv(text: string, file: string): CsvTable {
         }
         while (i < n && (text[i] === ' ' || text[i] === '\t')) i++;
         if (i < n && text[i] !== ',' && text[i] !== '\n' && text[i] !== '\r') {
-          throw new InputError('unexpected text after a quoted field', { file, row: startLine });
+          throw new InputError('unexpected text after a quoted field', { file, line: startLine });
         }
         continue;
       }
@@ -74,10 +76,10 @@ export function parseCsv(text: string, file: string): CsvTable {
   const rowNumbers: number[] = [];
   for (const r of records.slice(1)) {
     if (r.fields.length !== header.length) {
-      throw new InputError(`has ${r.fields.length} fields, the header has ${header.length}`, { file, row: r.line });
+      throw new InputError(`has ${r.fields.length} fields, the header has ${header.length}`, { file, line: r.line });
     }
     rows.push(r.fields);
     rowNumbers.push(r.line);
   }
-  return { header, rows, rowNumbers };
+  return { header, headerLine: records[0].line, rows, rowNumbers };
 }

@@ -20,6 +20,7 @@
  * Bad rows throw InputError with the file's 1-based line number.
  */
 import { readInputText } from '../io/inputFile.js';
+import { didYouMean } from '../core/didYouMean.js';
 import { InputError } from '../core/errors.js';
 import { parseCsv } from '../io/csv.js';
 import { energyUnitFactor, intensityUnit } from './units.js';
@@ -46,11 +47,11 @@ export interface SpectrumPoints {
   ulConfidence?: number;
 }
 
-function parseFlag(text: string, file: string, row: number): number {
+function parseFlag(text: string, file: string, line: number): number {
   const t = text.toLowerCase();
   if (t === '' || t === '0' || t === 'false' || t === 'no') return 0;
   if (t === '1' || t === 'true' || t === 'yes') return 1;
-  throw new InputError(`ul is "${text}", expected 1/0, true/false or yes/no`, { file, row, keyword: 'ul' });
+  throw new InputError(`ul is "${text}", expected 1/0, true/false or yes/no`, { file, line, keyword: 'ul' });
 }
 
 /** Parses points from CSV text; `file` names the source in error messages. */
@@ -62,13 +63,22 @@ export function parseSpectrumPoints(text: string, file = '<text>'): SpectrumPoin
   }
   const table = parseCsv(text, file);
   const header = table.header.map((h) => h.toLowerCase());
-  const rows = table.rows.map((cells, k) => ({ cells, row: table.rowNumbers[k] }));
+  const rows = table.rows.map((cells, k) => ({ cells, line: table.rowNumbers[k] }));
   const col = (name: string) => header.indexOf(name);
   const iE = col('energy'), iLo = col('e_min'), iHi = col('e_max'), iV = col('value');
   const iErr = col('err'), iEl = col('err_low'), iEh = col('err_high'), iUl = col('ul');
   const iEu = col('energy_unit'), iVu = col('value_unit') >= 0 ? col('value_unit') : col('unit');
-  if (iV < 0) throw new InputError('no "value" column', { file, row: 1 }, `columns found: ${header.join(', ')}`);
-  if (iE < 0 && (iLo < 0 || iHi < 0)) throw new InputError('no "energy" column and no "e_min"/"e_max" pair', { file });
+  const atHeader = { file, line: table.headerLine };
+  const missing = (name: string, what: string) => new InputError(`found no column '${name}' in the header (its columns: ${header.join(', ')}), expected ${what}`,
+    atHeader, didYouMean(name, header) || undefined);
+  if (iV < 0) throw missing('value', 'the measured values');
+  if (iE < 0 && (iLo < 0 || iHi < 0)) {
+    throw iLo >= 0 ? missing('e_max', 'e_max beside e_min (or an energy column)') : iHi >= 0 ? missing('e_min', 'e_min beside e_max (or an energy column)')
+      : missing('energy', 'an energy column or an e_min, e_max pair');
+  }
+  // err_low and err_high come as a pair (or err alone).
+  if (iEl >= 0 && iEh < 0 && iErr < 0) throw missing('err_high', 'err_high beside err_low (or a symmetric err column)');
+  if (iEh >= 0 && iEl < 0 && iErr < 0) throw missing('err_low', 'err_low beside err_high (or a symmetric err column)');
   if (rows.length === 0) throw new InputError('no data rows', { file });
   const n = rows.length;
   const out: SpectrumPoints = {
@@ -76,8 +86,8 @@ export function parseSpectrumPoints(text: string, file = '<text>'): SpectrumPoin
     errHigh: new Float64Array(n), upperLimit: new Uint8Array(n), source: file,
   };
   if (iLo >= 0 && iHi >= 0) { out.eMinGeV = new Float64Array(n).fill(NaN); out.eMaxGeV = new Float64Array(n).fill(NaN); }
-  rows.forEach(({ cells, row }, k) => {
-    const where = { file, row };
+  rows.forEach(({ cells, line }, k) => {
+    const where = { file, line };
     const num = (i: number, name: string, allowEmpty: boolean): number => {
       const t = i >= 0 ? (cells[i] ?? '') : '';
       if (t === '' && allowEmpty) return NaN;
@@ -102,7 +112,7 @@ export function parseSpectrumPoints(text: string, file = '<text>'): SpectrumPoin
     const { form, factor } = intensityUnit(vu, where);
     const toI = form === 'perEnergy' ? factor : factor / (e * e);
     const v = num(iV, 'value', false);
-    const ul = iUl >= 0 ? parseFlag(cells[iUl] ?? '', file, row) : 0;
+    const ul = iUl >= 0 ? parseFlag(cells[iUl] ?? '', file, line) : 0;
     let lo = num(iEl, 'err_low', true), hi = num(iEh, 'err_high', true);
     const sym = num(iErr, 'err', true);
     if (Number.isNaN(lo)) lo = sym;
@@ -110,8 +120,10 @@ export function parseSpectrumPoints(text: string, file = '<text>'): SpectrumPoin
     if (!ul) {
       if (!(v > 0)) throw new InputError(`value ${v} must be > 0 (a fit in log space needs positive values)`, { ...where, keyword: 'value' },
         'give a non-positive measurement as an upper limit (ul = 1)');
-      if (!(lo > 0) || !(hi > 0)) throw new InputError('errors missing or not > 0', { ...where, keyword: 'err_low' },
-        'give err, or err_low and err_high, or mark the row ul = 1');
+      const bad = !(lo > 0) ? (iEl >= 0 ? 'err_low' : 'err') : (iEh >= 0 ? 'err_high' : 'err');
+      const t = (iEl >= 0 && bad === 'err_low' ? cells[iEl] : iEh >= 0 && bad === 'err_high' ? cells[iEh] : iErr >= 0 ? cells[iErr] : '') ?? '';
+      if (!(lo > 0) || !(hi > 0)) throw new InputError(`${bad} is ${t === '' ? 'empty' : `"${t}"`}, expected an error > 0`, { ...where, keyword: bad },
+        iEl < 0 && iEh < 0 && iErr < 0 ? 'add an err column, or err_low and err_high, or mark the row ul = 1' : 'give the error, or mark the row ul = 1');
     } else if (!(v > 0)) throw new InputError(`upper limit ${v} must be > 0`, { ...where, keyword: 'value' });
     out.energyGeV[k] = e; out.value[k] = v * toI; out.upperLimit[k] = ul;
     out.errLow[k] = ul ? 0 : lo * toI; out.errHigh[k] = ul ? 0 : hi * toI;

@@ -1,12 +1,15 @@
 /**
- * The pictures of a run: a Mollweide sky map of one template with the
- * measured region (and forecast footprint) outlined and the mask hatched, the
+ * The pictures of a run: a zoomed footprint picture (measured region outlined,
+ * masks hatched, every mask disc circled), a Mollweide sky map of one template
+ * with the measured region (and forecast footprint) outlined and the mask hatched, the
  * spectrum (gamma-ray points, predicted neutrino bands: template spread and
  * total, the measured neutrino band) and the forecast spectrum.
  */
 import { evaluateRegion } from '../regions/evaluate.js';
 import type { RegionDocument } from '../regions/types.js';
-import { renderSkyMap } from '../render/skyImage.js';
+import { renderSkyMap, type ZoomWindowDeg } from '../render/skyImage.js';
+import { ringTable } from '../sphere/ringTable.js';
+import { maskDiscs, type MaskDisc } from './regionSummary.js';
 import type { RegionOverlay } from '../render/overlays.js';
 import { renderSpectrumSvg } from '../render/spectrumSvg.js';
 import { pointsFromIntensity, type SpectrumBand } from '../render/spectrumData.js';
@@ -27,6 +30,64 @@ export function skyMapPng(map: SkyMap, name: string, doc: RegionDocument, o: { o
     width: o.width, scale: 'log', title: `template ${name}`,
     outlines: o.outline.map((r, i) => overlay(doc, r, nside, i === 0 ? 0xffffff : 0x7fdbff)),
     shades: o.shade.map((r) => overlay(doc, r, nside)),
+    discs: { frame: 'galactic', marks: o.shade.flatMap((r) => { try { return maskDiscs(doc, r); } catch { return []; } }) },
+  }).png;
+}
+
+/**
+ * The lon/lat window (deg) around the pixels of `region` (fraction > 0 at Nside 64): the shortest longitude
+ * arc holding them all (found from the widest empty gap) and their latitudes, with a margin of 3 deg and at
+ * least 12 deg of latitude; null when the region is empty or covers every longitude of a wide latitude range.
+ */
+export function footprintWindow(doc: RegionDocument, region: string): ZoomWindowDeg | null {
+  const nside = 64;
+  const w = evaluateRegion(doc, region, { nside, frame: 'galactic', mode: 'centre' });
+  const rt = ringTable(nside);
+  const lonSeen = new Uint8Array(360);
+  let bMin = 90, bMax = -90;
+  for (let r = 0; r < rt.count; r++) {
+    const b = 90 - (rt.theta[r] * 180) / Math.PI;
+    for (let k = 0; k < rt.length[r]; k++) {
+      if (!(w.fraction[rt.first[r] + k] > 0)) continue;
+      lonSeen[Math.floor((((rt.phi0[r] + k * rt.dphi[r]) * 180) / Math.PI) % 360)] = 1;
+      if (b < bMin) bMin = b;
+      if (b > bMax) bMax = b;
+    }
+  }
+  if (bMax < bMin) return null;
+  // Widest run of unseen whole degrees, circularly.
+  let bestStart = 0, bestLen = 0;
+  for (let s = 0; s < 360; s++) {
+    if (lonSeen[s] || lonSeen[(s + 359) % 360] === 0) continue;
+    let n = 0;
+    while (n < 360 && !lonSeen[(s + n) % 360]) n++;
+    if (n > bestLen) { bestLen = n; bestStart = s; }
+  }
+  const margin = 3;
+  const latLo = Math.max(-90, bMin - margin), latHi = Math.min(90, bMax + margin);
+  const mid = 0.5 * (latLo + latHi), half = Math.max(6, 0.5 * (latHi - latLo));
+  const lat: [number, number] = [Math.max(-90, mid - half), Math.min(90, mid + half)];
+  if (bestLen < 20) return lat[1] - lat[0] > 60 ? null : { lonMinDeg: -180, lonMaxDeg: 180, latMinDeg: lat[0], latMaxDeg: lat[1] };
+  // The seen arc runs from the end of the gap to its start; shown with l decreasing to the right like the sky.
+  const from = (bestStart + bestLen) % 360 - margin, width = 360 - bestLen + 2 * margin;
+  const lonMin = from > 180 ? from - 360 : from;
+  return { lonMinDeg: lonMin, lonMaxDeg: lonMin + Math.min(360, width), latMinDeg: lat[0], latMaxDeg: lat[1] };
+}
+
+/**
+ * The footprint picture: the template zoomed onto the measured region, the region outlined, the masks hatched
+ * and every mask disc circled (at least a few pixels wide). Null when no window fits (see {@link footprintWindow}).
+ */
+export function footprintPng(map: SkyMap, name: string, doc: RegionDocument, o: { region: string; masks: string[]; width: number }): Uint8Array | null {
+  const zoom = footprintWindow(doc, o.region);
+  if (!zoom) return null;
+  const nside = Math.min(256, Math.max(64, map.nside));
+  const marks: MaskDisc[] = [];
+  for (const r of [o.region, ...o.masks]) { try { marks.push(...maskDiscs(doc, r)); } catch { /* a catalogue already refused elsewhere */ } }
+  return renderSkyMap(map, {
+    width: o.width, scale: 'log', title: `footprint '${o.region}' on template ${name}`, zoom,
+    outlines: [overlay(doc, o.region, nside, 0xffffff)], shades: o.masks.map((r) => overlay(doc, r, nside)),
+    discs: { frame: 'galactic', marks },
   }).png;
 }
 

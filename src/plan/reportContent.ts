@@ -1,7 +1,9 @@
 /**
- * What the run's HTML report says: the headline sentence with its numbers,
- * the assumptions in plain words, the factor, survival and comparison tables,
- * the figures and the provenance. Rendered by render/report.ts.
+ * What the run's HTML report says, in reading order: the headline sentence
+ * with its numbers, the result scaled to each target, the regions and
+ * weights, the figures, the assumptions in plain words, the comparison,
+ * factor, survival and forecast tables, the warnings grouped by cause, and
+ * the provenance. Rendered by render/report.ts.
  */
 import { channelWords, defaultMethods } from '../physics/hadronic/channels.js';
 import { METHOD_SPREAD_NOTE } from '../compare/conversion.js';
@@ -11,6 +13,8 @@ import { SUMMARY_DEFINITIONS } from '../compare/report.js';
 import type { RunComputation } from './compute.js';
 import type { ResolvedPlan } from './loadPlan.js';
 import { projectionSentence } from './projectionReport.js';
+import { describeRegions } from './regionSummary.js';
+import { FORECAST_UNIT, forecastData, groupMessages, reportTable, scaledTable, survivalData } from './reportTables.js';
 
 /** The headline numbers as shown (3 significant digits) and as computed. */
 export interface Headline {
@@ -65,17 +69,15 @@ export function headline(rp: ResolvedPlan, c: RunComputation): Headline {
 
 function factorTable(c: RunComputation, rp: ResolvedPlan): ReportTable {
   const rows = c.factors ? c.factors.rows : c.forecastFactors!.rows;
-  return { id: 'factors', caption: `Extrapolation factors from '${c.factors ? rp.plan.gamma!.region : rp.plan.forecast!.footprint}' (per template, plane and target)`,
-    columns: ['template', 'plane', 'target', 'k_I', 'k_F (sr)', 'k_4pi', 'Omega_A (sr)', 'Omega_B (sr)', 'flux of B in A'],
-    rows: rows.map((r) => [r.template, r.plane, r.target, r.kI, r.kFSr, r.fourPiFactor, r.solidAngleMeasuredSr, r.solidAngleTargetSr, r.coveredFluxFraction]),
-    note: 'k_I: mean template intensity in the target over the (exposure-weighted) mean in the measured region.' };
+  return { id: 'factors', caption: `Extrapolation factors from '${c.factors ? rp.plan.gamma!.region : rp.plan.forecast!.footprint}' (per template, energy plane and target)`,
+    columns: ['template', 'plane', 'E (GeV)', 'target', 'k_I', 'k_F (sr)', 'k_4pi', 'Omega_A (sr)', 'Omega_B (sr)', 'c_AB'],
+    rows: rows.map((r) => [r.template, r.plane + 1, r.energyGeV, r.target, r.kI, r.kFSr, r.fourPiFactor, r.solidAngleMeasuredSr, r.solidAngleTargetSr, r.coveredFluxFraction]),
+    note: 'k_I: mean template intensity in the target over the (exposure-weighted) mean in the measured region A; k_F = k_I Omega_B; k_4pi: the same for the whole sky; c_AB: fraction of the target\'s template flux inside A. Planes are numbered from 1.' };
 }
 
-function survivalTable(s: NonNullable<RunComputation['survival']>, id: string): ReportTable {
-  return { id, caption: `Mean survival probability of gamma rays from '${s.region}' (CMB pair absorption, emission weighted${s.exposureWeighted ? ', exposure weighted' : ''})`,
-    columns: ['template', ...s.energiesGeV.map((e) => `${Number((e / 1e3).toPrecision(3))} TeV`)],
-    rows: Object.entries(s.byTemplate).map(([t, v]) => [t, ...v]) };
-}
+/** Human headings of the comparison table's columns (its keys are the compare layer's JSON keys). */
+const COMPARISON_HEADINGS: Record<string, string> = { quantity: 'quantity', description: 'description', energyGeV: 'E (GeV)', median: 'median',
+  p16: '16 %', p84: '84 %', relativeHalfWidth: 'relative half-width' };
 
 /** The report content. `extras` are tables and figures other stages add (e.g. the population section). */
 export function reportContent(rp: ResolvedPlan, c: RunComputation, h: Headline, figures: ReportFigure[],
@@ -99,22 +101,36 @@ export function reportContent(rp: ResolvedPlan, c: RunComputation, h: Headline, 
   const tables: ReportTable[] = [];
   if (comparisonRows.length) {
     const cols = Object.keys(comparisonRows[0]);
-    tables.push({ id: 'comparison', caption: `Prediction and comparison at ${Number((c.e0GeV / 1e3).toPrecision(4))} TeV (intensities in GeV^-1 cm^-2 s^-1 sr^-1)`,
-      columns: cols, rows: comparisonRows.map((r) => cols.map((k) => (r[k] === '' ? null : r[k]))), note: SUMMARY_DEFINITIONS.join('. ') + '.' });
+    tables.push({ id: 'comparison', caption: `Prediction and comparison at ${Number((c.e0GeV / 1e3).toPrecision(4))} TeV (intensities I in GeV^-1 cm^-2 s^-1 sr^-1)`,
+      columns: cols.map((k) => COMPARISON_HEADINGS[k] ?? k), rows: comparisonRows.map((r) => cols.map((k) => (r[k] === '' ? null : r[k]))), note: SUMMARY_DEFINITIONS.join('. ') + '.' });
   }
   tables.push(factorTable(c, rp));
-  if (c.survival) tables.push(survivalTable(c.survival, 'survival'));
-  if (c.forecast) {
-    const comb = c.forecast.components.find((k) => k.name === 'combined')!;
-    tables.push({ id: 'forecast', caption: `Expected gamma-ray intensity in '${rp.plan.forecast!.footprint}' (E^2 I, GeV cm^-2 s^-1 sr^-1)`,
-      columns: ['E (TeV)', 'median', '16 %', '84 %'],
-      rows: Array.from(c.forecast.energiesGammaGeV, (e, j) => [e / 1e3, comb.atEnergies[j].median * e * e, comb.atEnergies[j].p16 * e * e, comb.atEnergies[j].p84 * e * e]) });
-    if (c.forecastSurvival) tables.push(survivalTable(c.forecastSurvival, 'forecast-survival'));
+  if (c.survival) tables.push(reportTable(survivalData(c.survival), 'survival', survivalCaption(c.survival)));
+  const f = forecastData(c);
+  if (f) {
+    tables.push(reportTable(f, 'forecast', `Expected gamma-ray intensity in '${rp.plan.forecast!.footprint}' (${FORECAST_UNIT}; the same numbers as forecast.csv)`));
+    if (c.forecastSurvival) tables.push(reportTable(survivalData(c.forecastSurvival), 'forecast-survival', survivalCaption(c.forecastSurvival)));
   }
   tables.push(...extraTables);
-  const said = [...(c.prediction?.warnings ?? []).map((w) => ['warning', w]), ...(c.forecast?.warnings ?? []).map((w) => ['warning', w]),
-    ...c.notes.map((n) => ['note', n]), ...(c.prediction?.notes ?? []).map((n) => ['note', n]), ...(c.forecast?.notes ?? []).map((n) => ['note', n])];
-  if (said.length) tables.push({ id: 'notes', caption: 'Notes and warnings of the run', columns: ['kind', 'text'], rows: said });
-  return { title: rp.plan.title, subtitle: rp.plan.about, headline: h.text, keyFigures, assumptions, tables, figures, provenance,
-    footer: 'Made by skyspan. Numbers carry the assumptions listed above.' };
+  const said: [string, string][] = [...(c.prediction?.warnings ?? []).map((w): [string, string] => ['warning', w]), ...(c.forecast?.warnings ?? []).map((w): [string, string] => ['warning', w]),
+    ...c.notes.map((n): [string, string] => ['note', n]), ...(c.prediction?.notes ?? []).map((n): [string, string] => ['note', n]), ...(c.forecast?.notes ?? []).map((n): [string, string] => ['note', n])];
+  const fr = c.factors ?? c.forecastFactors;
+  const results = fr ? [reportTable(scaledTable(fr, c.factors ? c.points : null), 'scaled-results',
+    c.factors ? `The gamma-ray intensity measured in '${rp.plan.gamma!.region}' (I_A) scaled to each target: I_B = k_I I_A, median and 16-84 % over the template ensemble`
+      : `Extrapolation factor k_I from '${rp.plan.forecast!.footprint}' to each target, median and 16-84 % over the template ensemble`,
+    c.factors ? 'The 16-84 % range is the spread between templates only (a model uncertainty); I_A is as measured (its own errors are in the points file), not corrected for absorption. k_I is taken at the template plane nearest each energy.' : undefined)] : [];
+  const roles: [string, string][] = [];
+  if (rp.plan.gamma) roles.push([`measured region${rp.plan.gamma.exposureWeighted ? ' (exposure weighted)' : ' (not exposure weighted)'}`, rp.plan.gamma.region]);
+  if (rp.plan.gamma?.mask) roles.push(['mask (drawn)', rp.plan.gamma.mask]);
+  if (rp.plan.forecast) roles.push([`forecast footprint${rp.plan.forecast.exposureWeighted ? ' (exposure weighted)' : ''}`, rp.plan.forecast.footprint]);
+  roles.push(['neutrino region', rp.plan.neutrino.region]);
+  for (const t of rp.plan.targets) if (t !== rp.plan.neutrino.region) roles.push(['target', t]);
+  const regions = [...describeRegions(rp.regions, roles),
+    `Coverage: ${rp.plan.coverage === 'centre' ? 'a pixel counts fully when its centre is inside (pixel-centre coverage)' : 'each pixel counts with the fraction of it inside (fractional coverage)'}.`];
+  return { title: rp.plan.title, subtitle: rp.plan.about, headline: h.text, keyFigures, results, regions, assumptions, tables, figures, provenance,
+    messages: groupMessages(said), footer: 'Made by skyspan. Numbers carry the assumptions listed above.' };
+}
+
+function survivalCaption(s: NonNullable<RunComputation['survival']>): string {
+  return `Mean survival probability P of gamma rays from '${s.region}' (CMB pair absorption, emission weighted${s.exposureWeighted ? ', exposure weighted' : ''})`;
 }

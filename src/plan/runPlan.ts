@@ -23,7 +23,8 @@ import { renderFactorTables } from '../scaling/tableText.js';
 import { VERSION } from '../version.js';
 import { ArtefactCache, type CacheStats } from './cache.js';
 import { computePlan, type RunComputation } from './compute.js';
-import { comparisonSvg, forecastSvg, skyMapPng } from './figures.js';
+import { runFigures } from './runFigures.js';
+import { runTableFiles } from './runTables.js';
 import { loadPlan } from './loadPlan.js';
 import { regionFiles } from './regionWeights.js';
 import { headline, reportContent, type Headline } from './reportContent.js';
@@ -93,40 +94,15 @@ export async function runPlan(planPath: string, options: RunOptions): Promise<Ru
     outs.push(...renderComparison(compReport, fmts.length ? fmts : ['json'], 'comparison').map((x) => ({ name: x.name, data: x.text })));
     outs.push(...predictionFluxPointFiles(c.prediction));
   }
-  const survCsv = (s: NonNullable<RunComputation['survival']>) => ['# mean survival probability (emission weighted) of gamma rays from region ' + s.region,
-    `template,${s.energiesGeV.map((e) => `P_at_${e}_GeV`).join(',')}`, ...Object.entries(s.byTemplate).map(([t, v]) => `${t},${v.join(',')}`)].join('\n') + '\n';
-  if (c.survival) outs.push({ name: 'survival.csv', data: survCsv(c.survival) });
-  if (c.forecastSurvival) outs.push({ name: 'forecast-survival.csv', data: survCsv(c.forecastSurvival) });
-  if (c.forecast) {
-    const comb = c.forecast.components.find((k) => k.name === 'combined')!;
-    outs.push({ name: 'forecast.csv', data: ['# expected gamma-ray intensity I (GeV^-1 cm^-2 s^-1 sr^-1) in the footprint ' + plan.forecast!.footprint,
-      ...c.forecast.assumptions.map((a) => `# assumption: ${a}`), 'energy_GeV,median,p16,p84',
-      ...Array.from(c.forecast.energiesGammaGeV, (e, j) => `${e},${comb.atEnergies[j].median},${comb.atEnergies[j].p16},${comb.atEnergies[j].p84}`)].join('\n') + '\n' });
-  }
+  outs.push(...runTableFiles(rp, c));
   if (c.populations) {
     outs.push({ name: 'populations-counts.csv', data: c.populations.tables.counts }, { name: 'populations-intensities.csv', data: c.populations.tables.intensities },
       { name: 'populations-counts.svg', data: c.populations.svg });
   }
 
-  const figures: ReportFigure[] = [];
-  if (plan.outputs.maps) {
-    const name = plan.outputs.mapTemplate ?? c.templates[0].name;
-    const t = c.templates.find((x) => x.name === name) ?? c.templates[0];
-    const outline = [...(plan.gamma ? [plan.gamma.region] : []), ...(plan.forecast ? [plan.forecast.footprint] : [])];
-    const png = skyMapPng(t.map, t.name, rp.regions, { outline, shade: plan.gamma?.mask ? [plan.gamma.mask] : [], width: plan.outputs.mapWidth });
-    outs.push({ name: 'map-template.png', data: png });
-    figures.push({ id: 'fig-map', png, caption: `Template '${t.name}' (Mollweide, Galactic, log scale) with ${outline.map((o) => `'${o}'`).join(' and ')} outlined${plan.gamma?.mask ? ` and '${plan.gamma.mask}' hatched` : ''}.` });
-  }
-  if (plan.outputs.spectrum && compReport) {
-    const svg = comparisonSvg(compReport, plan.title);
-    outs.push({ name: 'spectrum.svg', data: svg });
-    figures.push({ id: 'fig-spectrum', svg, caption: 'Gamma-ray points in the measured region, the predicted neutrino intensity (template spread inside the total uncertainty) and the measured neutrino band.' });
-  }
-  if (plan.outputs.spectrum && c.forecast) {
-    const svg = forecastSvg(c.forecast, rp.measurement, `${plan.title}: forecast`);
-    outs.push({ name: 'forecast.svg', data: svg });
-    figures.push({ id: 'fig-forecast', svg, caption: `Gamma-ray intensity expected in '${plan.forecast!.footprint}' from the neutrino measurement.` });
-  }
+  const pictures = runFigures(rp, c, compReport);
+  outs.push(...pictures.files);
+  const figures: ReportFigure[] = pictures.figures;
   const extraTables: ReportTable[] = [];
   if (c.projection) extraTables.push(projectionTable(c.projection));
   if (c.populations) figures.push({ id: 'fig-populations', svg: c.populations.svg, caption: `Source counts of the population '${c.populations.name}' (not applied to the headline).` });

@@ -9,6 +9,7 @@
  * quadrature; common practice, no source).
  */
 import { resolve, dirname } from 'node:path';
+import { didYouMean } from '../core/didYouMean.js';
 import { InputError } from '../core/errors.js';
 import { degToRad } from '../sphere/angles.js';
 import { readCsv } from '../io/csv.js';
@@ -39,9 +40,10 @@ export function readSourceList(
     const name = node.columns[role];
     const i = csv.header.indexOf(name);
     if (i < 0 && required) {
-      throw new InputError(`found no column '${name}' in ${node.file} (its columns: ${csv.header.join(', ')}), expected the ${role} column`,
+      const near = didYouMean(name, csv.header);
+      throw new InputError(`found no column '${name}' in the header of ${node.file} (line ${csv.headerLine}; its columns: ${csv.header.join(', ')}), expected the ${role} column`,
         { file: regionFile, keyPath: `${node.keyPath}.sources.columns.${role}` },
-        `name the column with columns.${role}`);
+        `${near ? `${near} ` : ''}name the column with columns.${role}`);
     }
     return i;
   };
@@ -56,7 +58,7 @@ export function readSourceList(
   };
   for (let r = 0; r < n; r++) {
     const row = csv.rows[r];
-    const where = { file: path, row: csv.rowNumbers[r] };
+    const where = { file: path, line: csv.rowNumbers[r] };
     const num = (i: number, what: string, lo: number, hi: number, loOpen = false): number => {
       const text = (row[i] ?? '').trim();
       const v = text === '' ? NaN : Number(text);

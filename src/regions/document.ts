@@ -4,6 +4,7 @@
  * references between named regions checked for unknown names and cycles.
  * Every problem is one {@link InputError} line naming the key path.
  */
+import { didYouMean } from '../core/didYouMean.js';
 import { parse as parseYaml, YAMLParseError } from 'yaml';
 import { InputError } from '../core/errors.js';
 import { degToRad } from '../sphere/angles.js';
@@ -73,7 +74,7 @@ function parseNode(value: unknown, keyPath: string, docFrame: ShapeFrame | undef
   const keys = Object.keys(obj);
   for (const k of keys) {
     if (!ALL_KEYS.includes(k)) {
-      throw new InputError(`found unknown key '${k}', expected one of: ${ALL_KEYS.join(', ')}`, { file, keyPath: `${keyPath}.${k}` });
+      throw new InputError(`found unknown key '${k}', expected one of: ${ALL_KEYS.join(', ')}`, { file, keyPath: `${keyPath}.${k}` }, didYouMean(k, ALL_KEYS) || undefined);
     }
   }
   const shapes = keys.filter((k) => SHAPE_KEYS.includes(k));
@@ -174,7 +175,7 @@ function checkReferences(doc: RegionDocument): void {
   for (const node of doc.regions.values()) {
     forEachRef(node, (ref) => {
       if (!doc.regions.has(ref.name)) {
-        throw new InputError(`found unknown region '${ref.name}', expected one of: ${names.join(', ')}`, { file: doc.file, keyPath: ref.keyPath });
+        throw new InputError(`found unknown region '${ref.name}', expected one of: ${names.join(', ')}`, { file: doc.file, keyPath: ref.keyPath }, didYouMean(ref.name, names) || undefined);
       }
     });
   }

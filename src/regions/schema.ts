@@ -4,6 +4,7 @@
  * expected. Angles are in degrees here (the file's unit); document.ts converts.
  */
 import { z } from 'zod';
+import { didYouMean } from '../core/didYouMean.js';
 import { InputError } from '../core/errors.js';
 
 const finite = z.number();
@@ -87,7 +88,9 @@ function bound(op: string, v: unknown): string {
 export function checkWith<T extends z.ZodType>(schema: T, value: unknown, basePath: string, file: string | undefined): z.infer<T> {
   const r = schema.safeParse(value, { reportInput: true });
   if (r.success) return r.data;
-  const issue = r.error.issues[0] as z.core.$ZodIssue & { input?: unknown; received?: string };
+  // An unknown key is named first: a misspelt key also shows up as the missing key it was meant to be.
+  const issue = (r.error.issues.find((i) => i.code === 'unrecognized_keys') ?? r.error.issues[0]) as z.core.$ZodIssue & { input?: unknown; received?: string };
+  let hint: string | undefined;
   let keyPath = joinPath(basePath, issue.path);
   let found = issue.received === 'NaN' || issue.received === 'Infinity' ? issue.received : describeValue(issue.input);
   if (typeof issue.input === 'number' && !Number.isFinite(issue.input)) found = String(issue.input);
@@ -102,6 +105,7 @@ export function checkWith<T extends z.ZodType>(schema: T, value: unknown, basePa
       keyPath = joinPath(keyPath, [issue.keys[0]]);
       found = `unknown key '${issue.keys[0]}'`;
       expected = `one of: ${allowedKeys(schema, issue.path).join(', ')}`;
+      hint = didYouMean(issue.keys[0], allowedKeys(schema, issue.path)) || undefined;
       break;
     case 'too_small':
       expected = issue.origin === 'array' ? `a list of ${issue.minimum} values` : issue.origin === 'string' ? 'a non-empty text'
@@ -127,7 +131,7 @@ export function checkWith<T extends z.ZodType>(schema: T, value: unknown, basePa
     default:
       expected = issue.message;
   }
-  throw new InputError(`found ${found}, expected ${expected}`, { file, keyPath });
+  throw new InputError(`found ${found}, expected ${expected}`, { file, keyPath }, hint);
 }
 
 function allowedKeys(schema: z.ZodType, path: readonly PropertyKey[]): string[] {

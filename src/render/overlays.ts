@@ -151,7 +151,7 @@ export function latLabel(latDeg: number): string {
 
 /**
  * Draws graticule lines over the picture area (light, translucent) and, on a
- * Mollweide view, longitude labels along the equator and latitude labels left
+ * Mollweide view, longitude labels along a parallel south of the equator and latitude labels left
  * of the ellipse; on a cartesian view the labels go on the frame (see the
  * picture composer).
  */
@@ -186,11 +186,12 @@ export function drawGraticule(raster: Raster, view: SkyView, at: AreaPlacement, 
     layerPolyline(rim, xs, ys, N, Math.max(1, 1.3 * at.u));
   }
   compositeLayer(raster, rim, 0x30343a, 0.9);
-  // Labels: longitudes on the equator (light on a dark halo), latitudes outside the rim.
-  const size = 11 * at.u;
+  // Labels: longitudes along the first parallel south of the equator, off the Galactic plane and the
+  // outlines drawn there (light on a dark halo); latitudes outside the rim.
+  const size = 11 * at.u, labelLat = -Math.min(30, steps.latStepDeg);
   const halo = createLayer(raster.width, raster.height), text = createLayer(raster.width, raster.height);
   for (let L = Math.ceil((lon0 + eps) / steps.lonStepDeg) * steps.lonStepDeg; L < lon1 - eps; L += steps.lonStepDeg) {
-    if (!view.project(degToRad(L), 0, p)) continue;
+    if (!view.project(degToRad(L), degToRad(labelLat), p)) continue;
     const x = at.ox + p[0] + 4 * at.u, y = at.oy + p[1] - 5 * at.u;
     layerText(halo, lonLabel(L), x, y, size, 'start', 3 * at.u);
     layerText(text, lonLabel(L), x, y, size, 'start');

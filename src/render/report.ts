@@ -1,7 +1,9 @@
 /**
  * The report: ONE self-contained HTML file (inline CSS, figures embedded as
- * data: URIs, no scripts, no network) with the headline sentence, key figures,
- * assumptions, tables, figures and provenance. All text is escaped; SVG figures
+ * data: URIs, no scripts, no network), read top-down: the headline sentence
+ * and key figures, the result scaled to each target, the regions and weights,
+ * the footprint picture, the spectra, other figures, the assumptions, the
+ * tables, the warnings (one line per cause) and the provenance. All text is escaped; SVG figures
  * are embedded as images (data:image/svg+xml), so their content cannot run or
  * restyle the page.
  */
@@ -19,10 +21,16 @@ export interface ReportTable {
   id?: string;
 }
 
+/** Where a figure goes: the footprint picture first, then the spectra, then other pictures. */
+export type FigureSection = 'footprint' | 'spectra' | 'other';
+
 /** A figure: PNG bytes or an SVG document string, with a caption. */
 export type ReportFigure =
-  | { caption: string; png: Uint8Array; alt?: string; id?: string }
-  | { caption: string; svg: string; alt?: string; id?: string };
+  | { caption: string; png: Uint8Array; alt?: string; id?: string; section?: FigureSection }
+  | { caption: string; svg: string; alt?: string; id?: string; section?: FigureSection };
+
+/** A warning or note shown once per cause, with how many times it was raised. */
+export interface GroupedMessage { kind: string; text: string; count: number }
 
 /** A number shown prominently next to the headline (and tagged for checks). */
 export interface KeyFigure { label: string; value: string; id?: string }
@@ -34,6 +42,12 @@ export interface ReportContent {
   /** The result in one sentence, with its numbers. */
   headline: string;
   keyFigures?: KeyFigure[];
+  /** The result scaled to each target (shown right under the headline). */
+  results?: ReportTable[];
+  /** The regions and weights, one sentence each. */
+  regions?: string[];
+  /** Warnings and notes, one per cause (shown after the tables). */
+  messages?: GroupedMessage[];
   /** Assumptions in plain words (template shape holds in the unseen sky; emission is hadronic; ...). */
   assumptions: string[];
   tables: ReportTable[];
@@ -57,7 +71,9 @@ h2{font:600 1.15rem/1.3 "DejaVu Sans","Helvetica Neue",Arial,sans-serif;margin:2
 .keys li{border:1px solid var(--rule);border-radius:4px;padding:.45rem .8rem;min-width:9rem}
 .keys .label{display:block;font:.8rem/1.3 "DejaVu Sans",Arial,sans-serif;color:var(--muted)}
 .keys .value{font:600 1.15rem/1.3 "DejaVu Sans Mono",Menlo,monospace}
-ul.assumptions li{margin:.2rem 0}
+ul.assumptions li,ul.regions li,ul.messages li{margin:.2rem 0}
+ul.messages li.warning strong{color:var(--accent)}
+sup,sub{font-size:.72em;line-height:0}
 table{border-collapse:collapse;width:100%;font:.9rem/1.4 "DejaVu Sans",Arial,sans-serif;margin:.3rem 0 1.4rem}
 caption{text-align:left;font-weight:600;padding:0 0 .4rem}
 th,td{padding:.32rem .6rem;border-bottom:1px solid var(--rule);text-align:left;vertical-align:top}
@@ -74,6 +90,20 @@ footer{margin-top:2.5rem;font-size:.82rem;color:var(--muted)}
 @media print{body{font-size:11pt}main{max-width:none;padding:0}h2{break-after:avoid}table,.headline{break-inside:avoid}a{color:inherit}}
 `;
 
+/**
+ * Escaped text with the plain-text notation of units and symbols typeset: `^-2` and `^2` become
+ * superscripts (with a true minus sign); in headings (`sub`), `k_I`, `Omega_A` and `k_4pi` become
+ * subscripts, and Omega and pi their Greek letters.
+ */
+export function richText(text: string, sub = false): string {
+  let h = esc(text).replace(/\^(-?)(\d+(?:\.\d+)?)/g, (_, m: string, d: string) => `<sup>${m ? '\u2212' : ''}${d}</sup>`);
+  if (sub) {
+    h = h.replace(/\bOmega(?![A-Za-z])/g, '\u03a9')
+      .replace(/(^|[^\w\u03a9])([A-Za-z\u03a9])_(\w+)/g, (_, p: string, a: string, b: string) => `${p}${a}<sub>${b.replace(/pi$/, '\u03c0')}</sub>`);
+  }
+  return h;
+}
+
 function cell(v: string | number | null): string {
   if (v === null) return '<td>\u2014</td>';
   if (typeof v === 'number') {
@@ -81,6 +111,17 @@ function cell(v: string | number | null): string {
     return `<td class="num">${esc(s)}</td>`;
   }
   return /^[-+]?[\d.]+(e[-+]?\d+)?(\s*[±]\s*[\d.]+(e[-+]?\d+)?)?$/i.test(v.trim()) ? `<td class="num">${esc(v)}</td>` : `<td>${esc(v)}</td>`;
+}
+
+function table(t: ReportTable): string[] {
+  // A column whose cells are all numbers (or empty) is right-aligned, header included.
+  const numeric = t.columns.map((_, c) => t.rows.length > 0 && t.rows.every((r) => r[c] === null || r[c] === undefined || cell(r[c]).startsWith('<td class="num"')));
+  const h = [`<table${idAttr(t.id)}>`, `<caption>${richText(t.caption)}</caption>`, '<thead><tr>',
+    ...t.columns.map((c, k) => `<th scope="col"${numeric[k] ? ' class="num"' : ''}>${richText(c, true)}</th>`), '</tr></thead>', '<tbody>'];
+  for (const r of t.rows) h.push(`<tr>${r.map(cell).join('')}</tr>`);
+  h.push('</tbody>', '</table>');
+  if (t.note) h.push(`<p class="note">${richText(t.note)}</p>`);
+  return h;
 }
 
 function idAttr(id?: string): string {
@@ -100,29 +141,42 @@ export function renderReport(content: ReportContent): string {
     `<title>${esc(content.title)}</title>`, `<style>${CSS}</style>`, '</head>', '<body>', '<main>');
   h.push(`<h1>${esc(content.title)}</h1>`);
   if (content.subtitle) h.push(`<p class="subtitle">${esc(content.subtitle)}</p>`);
-  h.push(`<p class="headline" id="headline">${esc(content.headline)}</p>`);
+  h.push(`<p class="headline" id="headline">${richText(content.headline)}</p>`);
   if (content.keyFigures?.length) {
     h.push('<ul class="keys">');
-    for (const k of content.keyFigures) h.push(`<li${idAttr(k.id)}><span class="label">${esc(k.label)}</span><span class="value" data-value="${esc(k.value)}">${esc(k.value)}</span></li>`);
+    for (const k of content.keyFigures) h.push(`<li${idAttr(k.id)}><span class="label">${richText(k.label)}</span><span class="value" data-value="${esc(k.value)}">${esc(k.value)}</span></li>`);
     h.push('</ul>');
   }
-  h.push('<h2>Assumptions</h2>', '<ul class="assumptions">', ...content.assumptions.map((a) => `<li>${esc(a)}</li>`), '</ul>');
-  if (content.tables.length) h.push('<h2>Tables</h2>');
-  for (const t of content.tables) {
-    // A column whose cells are all numbers (or empty) is right-aligned, header included.
-    const numeric = t.columns.map((_, c) => t.rows.length > 0 && t.rows.every((r) => r[c] === null || r[c] === undefined || cell(r[c]).startsWith('<td class="num"')));
-    h.push(`<table${idAttr(t.id)}>`, `<caption>${esc(t.caption)}</caption>`, '<thead><tr>',
-      ...t.columns.map((c, k) => `<th scope="col"${numeric[k] ? ' class="num"' : ''}>${esc(c)}</th>`), '</tr></thead>', '<tbody>');
-    for (const r of t.rows) h.push(`<tr>${r.map(cell).join('')}</tr>`);
-    h.push('</tbody>', '</table>');
-    if (t.note) h.push(`<p class="note">${esc(t.note)}</p>`);
+  if (content.results?.length) {
+    h.push('<section id="scaled">', '<h2>Result scaled to each target</h2>');
+    for (const t of content.results) h.push(...table(t));
+    h.push('</section>');
   }
-  if (content.figures.length) h.push('<h2>Figures</h2>');
-  content.figures.forEach((f, k) => {
-    const src = 'png' in f ? `data:image/png;base64,${base64(f.png)}` : `data:image/svg+xml;base64,${base64(f.svg)}`;
-    h.push(`<figure${idAttr(f.id)}>`, `<img src="${src}" alt="${esc(f.alt ?? f.caption)}">`,
-      `<figcaption><strong>Figure ${k + 1}.</strong> ${esc(f.caption)}</figcaption>`, '</figure>');
-  });
+  if (content.regions?.length) {
+    h.push('<section id="regions">', '<h2>Regions and weights</h2>', '<ul class="regions">', ...content.regions.map((r) => `<li>${richText(r)}</li>`), '</ul>', '</section>');
+  }
+  const sections: [FigureSection, string][] = [['footprint', 'Footprint'], ['spectra', 'Spectra'], ['other', 'Sky map and other figures']];
+  let n = 0;
+  for (const [sec, title] of sections) {
+    const figs = content.figures.filter((f) => (f.section ?? 'other') === sec);
+    if (!figs.length) continue;
+    h.push(`<section id="figures-${sec}">`, `<h2>${title}</h2>`);
+    for (const f of figs) {
+      const src = 'png' in f ? `data:image/png;base64,${base64(f.png)}` : `data:image/svg+xml;base64,${base64(f.svg)}`;
+      h.push(`<figure${idAttr(f.id)}>`, `<img src="${src}" alt="${esc(f.alt ?? f.caption)}">`,
+        `<figcaption><strong>Figure ${++n}.</strong> ${richText(f.caption)}</figcaption>`, '</figure>');
+    }
+    h.push('</section>');
+  }
+  h.push('<h2>Assumptions</h2>', '<ul class="assumptions">', ...content.assumptions.map((a) => `<li>${richText(a)}</li>`), '</ul>');
+  if (content.tables.length) h.push('<section id="tables">', '<h2>Tables</h2>');
+  for (const t of content.tables) h.push(...table(t));
+  if (content.tables.length) h.push('</section>');
+  if (content.messages?.length) {
+    h.push('<section id="messages">', '<h2>Warnings and notes</h2>', '<ul class="messages">',
+      ...content.messages.map((m) => `<li class="${m.kind === 'warning' ? 'warning' : 'note'}"><strong>${esc(m.kind)}</strong>${m.count > 1 ? ` (${m.count}\u00d7)` : ''}: ${richText(m.text)}</li>`),
+      '</ul>', '</section>');
+  }
   const prov = Array.isArray(content.provenance) ? content.provenance : Object.entries(content.provenance);
   h.push('<h2>Provenance</h2>', '<dl class="prov">', ...prov.map(([k, v]) => `<dt>${esc(k)}</dt><dd>${esc(String(v))}</dd>`), '</dl>');
   if (content.footer) h.push(`<footer>${esc(content.footer)}</footer>`);

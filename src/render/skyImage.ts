@@ -19,6 +19,7 @@ import { pixelLookup } from './pixelLookup.js';
 import { colouriseArea } from './colourise.js';
 import { drawGraticule, drawOutlines, drawShades, graticuleStep, latLabel, lonLabel, type RegionOverlay } from './overlays.js';
 import { colourBarHeight, drawColourBar } from './colourBar.js';
+import { drawDiscMarks, type DiscMark } from './discMarks.js';
 
 /** A lon/lat window in degrees for the zoomed view; lonMaxDeg > lonMinDeg (e.g. -40 .. 60). */
 export interface ZoomWindowDeg { lonMinDeg: number; lonMaxDeg: number; latMinDeg: number; latMaxDeg: number }
@@ -37,8 +38,8 @@ export interface SkyImageOptions {
   colourMap?: ColourMapName;
   /** Display frame (default: the map's frame; 'galactic' for a map of unknown frame). */
   frame?: 'galactic' | 'equatorial';
-  /** Longitude at the centre of a Mollweide picture (default 0: the Galactic centre, or RA 0). */
-  centreLonDeg?: number;
+  /** Longitude in the middle of a Mollweide picture (default 0: the Galactic centre, or RA 0). */
+  viewLonDeg?: number;
   zoom?: ZoomWindowDeg;
   /** Graticule on/off or its steps (default: 60/30 deg on Mollweide, automatic on a zoom). */
   graticule?: boolean | { lonStepDeg: number; latStepDeg: number };
@@ -47,6 +48,8 @@ export interface SkyImageOptions {
   unit?: string;
   outlines?: readonly RegionOverlay[];
   shades?: readonly RegionOverlay[];
+  /** Mask discs outlined as circles (never smaller than a few pixels), in `frame`. */
+  discs?: { frame: FrameName; marks: readonly DiscMark[] };
 }
 
 /** The picture and what a caller (or a test) needs to read it. */
@@ -70,7 +73,7 @@ function checkOptions(o: SkyImageOptions, map: SkyMap): void {
   if (!(Number.isInteger(w) && w >= 300 && w <= 8000)) throw new InputError(`width is ${w}, expected a whole number of pixels from 300 to 8000`, { keyPath: 'width' });
   const p = o.plane ?? 0;
   if (!(Number.isInteger(p) && p >= 0 && p < map.planes.length)) {
-    throw new InputError(`plane ${p} does not exist: the map has ${map.planes.length} plane(s), numbered from 0`, { keyPath: 'plane' });
+    throw new InputError(`plane ${p + 1} does not exist: the map has ${map.planes.length} plane(s), numbered from 1`, { keyPath: 'plane' });
   }
   const z = o.zoom;
   if (z && !(z.lonMaxDeg > z.lonMinDeg && z.lonMaxDeg - z.lonMinDeg <= 360 && z.latMaxDeg > z.latMinDeg && z.latMinDeg >= -90 && z.latMaxDeg <= 90)) {
@@ -98,7 +101,7 @@ export function renderSkyMap(map: SkyMap, options: SkyImageOptions = {}): SkyIma
     const pad = Math.round(58 * u);
     const pw = 2 * Math.floor((W - 2 * pad) / 2);
     ox = Math.round((W - pw) / 2);
-    view = mollweideView(pw, options.centreLonDeg ?? 0);
+    view = mollweideView(pw, options.viewLonDeg ?? 0);
     belowArea = Math.round(26 * u);
   } else {
     const left = Math.round(70 * u), right = Math.round(30 * u);
@@ -125,10 +128,11 @@ export function renderSkyMap(map: SkyMap, options: SkyImageOptions = {}): SkyIma
     if (zoom) drawFrameAxes(raster, view, at, steps, displayFrame);
   }
   if (options.outlines?.length) drawOutlines(raster, view, at, options.outlines, displayFrame);
+  if (options.discs) drawDiscMarks(raster, view, at, options.discs.marks, options.discs.frame, displayFrame);
   const ink = createLayer(W, H);
   if (options.title) layerText(ink, options.title, ox, Math.round(30 * u), 17 * u, 'start');
   const note = (displayFrame === 'galactic' ? 'Galactic' : 'Equatorial (ICRS)') + (map.frame === 'unknown' ? ', map frame assumed' : '')
-    + (map.energiesGeV ? `, plane ${planeIndex} at ${Number(map.energiesGeV[planeIndex].toPrecision(4))} GeV` : '');
+    + (map.energiesGeV ? `, plane ${planeIndex + 1} at ${Number(map.energiesGeV[planeIndex].toPrecision(4))} GeV` : '');
   layerText(ink, note, ox + view.width, Math.round((options.title ? 30 : 16) * u), 11 * u, 'end');
   compositeLayer(raster, ink, 0x30343a, 1);
   const barW = Math.round(view.width * 0.56);

@@ -2,7 +2,8 @@
  * Spectra as SVG: E^2 I against E on log-log axes (d3-scale's scaleLog for the
  * mapping and ticks), gamma-ray points with asymmetric errors and upper limits
  * (bar and downward arrow), predicted neutrino bands (template spread inside the
- * total uncertainty), a measured neutrino band or points, and a legend. The SVG
+ * total uncertainty), a measured neutrino band or points, and a legend below
+ * the plot area (outside it, so it never covers data). The SVG
  * is a plain string with no scripts and no external references.
  */
 import { scaleLog, type ScaleLogarithmic } from 'd3-scale';
@@ -55,10 +56,13 @@ function check(data: SpectrumPlotData): void {
 /** Draws the figure described by `data` (see {@link SpectrumPlotData}) as an SVG document string. */
 export function renderSpectrumSvg(data: SpectrumPlotData, options: SpectrumSvgOptions = {}): string {
   check(data);
-  const W = options.width ?? 760, H = options.height ?? 500;
+  // The legend sits below the axes, outside the plot area, so it never covers data: one row per entry.
+  const legendRows = data.bands.length + data.points.length;
+  const legendH = legendRows ? legendRows * 20 + 14 : 0;
+  const W = options.width ?? 760, H = (options.height ?? 500) + legendH;
   const eu = data.energyUnit ?? 'TeV', yu = data.e2EnergyUnit ?? 'GeV';
   const ediv = ENERGY_DIV[eu], ymul = E2_MUL[yu];
-  const m = { left: 96, right: 24, top: data.title ? 44 : 20, bottom: 62 };
+  const m = { left: 96, right: 24, top: data.title ? 44 : 20, bottom: 62 + legendH };
   const es: number[] = [], ys: number[] = [];
   for (const p of data.points) for (let i = 0; i < p.energyGeV.length; i++) {
     es.push(p.energyGeV[i]); ys.push(p.e2I[i] + p.errHigh[i]);
@@ -94,7 +98,7 @@ export function renderSpectrumSvg(data: SpectrumPlotData, options: SpectrumSvgOp
     if (major) out.push(`<text x="${x0 - 9}" y="${fmt(y(t) + 4.5)}" text-anchor="end" data-role="tick-label">${decadeLabel(t)}</text>`);
   }
   out.push(`<rect x="${x0}" y="${y1}" width="${x1 - x0}" height="${y0 - y1}" fill="none" stroke="${INK}"/>`);
-  out.push(`<text x="${fmt((x0 + x1) / 2)}" y="${H - 16}" text-anchor="middle" data-role="axis-label">E [${eu}]</text>`);
+  out.push(`<text x="${fmt((x0 + x1) / 2)}" y="${y0 + 46}" text-anchor="middle" data-role="axis-label">E [${eu}]</text>`);
   const yLabel = `E\u00b2 I [${yu} cm\u207b\u00b2 s\u207b\u00b9 sr\u207b\u00b9]` + (data.yNote ? ` (${data.yNote})` : '');
   out.push(`<text transform="translate(22 ${fmt((y0 + y1) / 2)}) rotate(-90)" text-anchor="middle" data-role="axis-label">${escapeXml(yLabel)}</text>`);
   // Bands: totals first, spreads over them, measured last.
@@ -129,7 +133,7 @@ export function renderSpectrumSvg(data: SpectrumPlotData, options: SpectrumSvgOp
       }
       const lo = v - p.errLow[i], hi = v + p.errHigh[i];
       const pyLo = lo > 0 ? Y(lo) : y0, pyHi = Y(hi);
-      out.push(`<line x1="${px}" y1="${fmt(pyLo)}" x2="${px}" y2="${fmt(pyHi)}" stroke="${colour}" stroke-width="1.4"/>`);
+      out.push(`<line data-role="error-bar" x1="${px}" y1="${fmt(pyLo)}" x2="${px}" y2="${fmt(pyHi)}" stroke="${colour}" stroke-width="1.4"/>`);
       out.push(p.kind === 'gamma'
         ? `<circle data-role="point" cx="${px}" cy="${fmt(py)}" r="4.2" fill="${colour}" stroke="#ffffff" stroke-width="1"/>`
         : `<rect data-role="point" x="${fmt(X(e) - 4)}" y="${fmt(py - 4)}" width="8" height="8" fill="${colour}" stroke="#ffffff" stroke-width="1"/>`);
@@ -137,10 +141,10 @@ export function renderSpectrumSvg(data: SpectrumPlotData, options: SpectrumSvgOp
     legend.push((p.kind === 'gamma' ? `<circle cx="11" cy="-4" r="4.2" fill="${colour}"/>` : `<rect x="7" y="-8" width="8" height="8" fill="${colour}"/>`)
       + `<line x1="11" y1="-11" x2="11" y2="3" stroke="${colour}" stroke-width="1.4"/><text x="30" y="0">${escapeXml(p.label)}</text>`);
   }
-  // Legend, top right inside the frame.
+  // Legend below the axis label, outside the plot area.
   if (legend.length) {
-    const lw = Math.min(0.8 * (x1 - x0), 44 + 7.2 * Math.max(...[...data.bands.map((b) => b.label.length), ...data.points.map((p) => p.label.length)]));
-    const lx = x1 - lw - 10, ly = y1 + 10;
+    const lw = Math.min(x1 - x0, 44 + 7.2 * Math.max(...[...data.bands.map((b) => b.label.length), ...data.points.map((p) => p.label.length)]));
+    const lx = x0 + 8, ly = y0 + 60;
     out.push(`<g data-role="legend" transform="translate(${fmt(lx)} ${fmt(ly)})"><rect x="-8" y="-4" width="${fmt(lw)}" height="${legend.length * 20 + 8}" fill="#ffffff" fill-opacity="0.88" stroke="#c9ced6"/>`);
     legend.forEach((l, k) => out.push(`<g transform="translate(0 ${k * 20 + 14})">${l}</g>`));
     out.push('</g>');

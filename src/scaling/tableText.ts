@@ -8,6 +8,7 @@ import type { FactorResult } from './ensembleFactors.js';
 import type { FactorRow } from './factorRow.js';
 import type { SummaryRow } from './summary.js';
 import { provenanceLines, type FactorProvenance } from './provenance.js';
+import { formatCsv } from '../io/csvWrite.js';
 
 /** Output formats of a factor table. */
 export type TableFormat = 'csv' | 'md' | 'json' | 'tex';
@@ -15,41 +16,39 @@ export type TableFormat = 'csv' | 'md' | 'json' | 'tex';
 export const TABLE_FORMATS: readonly TableFormat[] = ['csv', 'md', 'json', 'tex'];
 
 type Col<R> = { key: string; label: string; tex: string; get: (r: R) => string | number | null };
+// key: CSV header, the same camelCase names as the JSON fields; label: the Markdown heading (symbols, units
+// in parentheses); tex: the LaTeX heading. Planes are numbered from 1 wherever a user sees them.
 const ROW_COLS: Col<FactorRow>[] = [
   { key: 'template', label: 'template', tex: 'template', get: (r) => r.template },
-  { key: 'plane', label: 'plane', tex: 'plane', get: (r) => r.plane },
-  { key: 'energy_GeV', label: 'E (GeV)', tex: '$E$ (GeV)', get: (r) => r.energyGeV },
+  { key: 'plane', label: 'plane', tex: 'plane', get: (r) => r.plane + 1 },
+  { key: 'energyGeV', label: 'E (GeV)', tex: '$E$ (GeV)', get: (r) => r.energyGeV },
   { key: 'target', label: 'target', tex: 'target', get: (r) => r.target },
-  { key: 'mean_measured', label: '<T>_A', tex: '$\\langle T\\rangle_A$', get: (r) => r.meanMeasured },
-  { key: 'mean_target', label: '<T>_B', tex: '$\\langle T\\rangle_B$', get: (r) => r.meanTarget },
-  { key: 'k_I', label: 'k_I', tex: '$k_I$', get: (r) => r.kI },
-  { key: 'k_F_sr', label: 'k_F (sr)', tex: '$k_F$ (sr)', get: (r) => r.kFSr },
-  { key: 'k_4pi', label: 'k_4pi', tex: '$k_{4\\pi}$', get: (r) => r.fourPiFactor },
-  { key: 'omega_measured_sr', label: 'Omega_A (sr)', tex: '$\\Omega_A$ (sr)', get: (r) => r.solidAngleMeasuredSr },
-  { key: 'omega_target_sr', label: 'Omega_B (sr)', tex: '$\\Omega_B$ (sr)', get: (r) => r.solidAngleTargetSr },
-  { key: 'covered_flux_fraction', label: 'flux of B in A', tex: '$c_{AB}$', get: (r) => r.coveredFluxFraction },
-  { key: 'blank_measured', label: 'blank in A', tex: 'blank $A$', get: (r) => r.blankMeasured },
-  { key: 'blank_target', label: 'blank in B', tex: 'blank $B$', get: (r) => r.blankTarget },
+  { key: 'meanMeasured', label: '<T>_A', tex: '$\\langle T\\rangle_A$', get: (r) => r.meanMeasured },
+  { key: 'meanTarget', label: '<T>_B', tex: '$\\langle T\\rangle_B$', get: (r) => r.meanTarget },
+  { key: 'kI', label: 'k_I', tex: '$k_I$', get: (r) => r.kI },
+  { key: 'kFSr', label: 'k_F (sr)', tex: '$k_F$ (sr)', get: (r) => r.kFSr },
+  { key: 'fourPiFactor', label: 'k_4pi', tex: '$k_{4\\pi}$', get: (r) => r.fourPiFactor },
+  { key: 'solidAngleMeasuredSr', label: 'Omega_A (sr)', tex: '$\\Omega_A$ (sr)', get: (r) => r.solidAngleMeasuredSr },
+  { key: 'solidAngleTargetSr', label: 'Omega_B (sr)', tex: '$\\Omega_B$ (sr)', get: (r) => r.solidAngleTargetSr },
+  { key: 'coveredFluxFraction', label: 'c_AB', tex: '$c_{AB}$', get: (r) => r.coveredFluxFraction },
+  { key: 'blankMeasured', label: 'blank in A', tex: 'blank $A$', get: (r) => r.blankMeasured },
+  { key: 'blankTarget', label: 'blank in B', tex: 'blank $B$', get: (r) => r.blankTarget },
   { key: 'nside', label: 'Nside', tex: '$N_\\mathrm{side}$', get: (r) => r.nside },
 ];
 const SUM_COLS: Col<SummaryRow>[] = [
   { key: 'target', label: 'target', tex: 'target', get: (r) => r.target },
-  { key: 'plane', label: 'plane', tex: 'plane', get: (r) => r.plane },
-  { key: 'energy_GeV', label: 'E (GeV)', tex: '$E$ (GeV)', get: (r) => r.energyGeV },
+  { key: 'plane', label: 'plane', tex: 'plane', get: (r) => r.plane + 1 },
+  { key: 'energyGeV', label: 'E (GeV)', tex: '$E$ (GeV)', get: (r) => r.energyGeV },
   { key: 'quantity', label: 'factor', tex: 'factor', get: (r) => r.quantity },
-  { key: 'templates', label: 'templates', tex: '$n$', get: (r) => r.count },
+  { key: 'count', label: 'templates', tex: '$n$', get: (r) => r.count },
   { key: 'median', label: 'median', tex: 'median', get: (r) => r.median },
-  { key: 'p16', label: 'p16', tex: '16\\%', get: (r) => r.p16 },
-  { key: 'p84', label: 'p84', tex: '84\\%', get: (r) => r.p84 },
+  { key: 'p16', label: '16 %', tex: '16\\%', get: (r) => r.p16 },
+  { key: 'p84', label: '84 %', tex: '84\\%', get: (r) => r.p84 },
   { key: 'min', label: 'min', tex: 'min', get: (r) => r.min },
   { key: 'max', label: 'max', tex: 'max', get: (r) => r.max },
   { key: 'weighted', label: 'weighted', tex: 'weighted', get: (r) => (r.weighted ? 'yes' : 'no') },
 ];
 
-function csvField(v: string | number | null): string {
-  const s = v === null ? '' : String(v);
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
-}
 function short(v: string | number | null): string {
   if (v === null) return '';
   if (typeof v === 'string') return v;
@@ -66,10 +65,7 @@ function texNumber(v: string | number | null): string {
 }
 
 function csv<R>(cols: Col<R>[], rows: R[], header: string[]): string {
-  const lines = header.map((l) => `# ${l}`);
-  lines.push(cols.map((c) => c.key).join(','));
-  for (const r of rows) lines.push(cols.map((c) => csvField(c.get(r))).join(','));
-  return lines.join('\n') + '\n';
+  return formatCsv(cols.map((c) => c.key), rows.map((r) => cols.map((c) => c.get(r))), { comments: header });
 }
 function md<R>(cols: Col<R>[], rows: R[]): string[] {
   const esc = (s: string) => s.replace(/\|/g, '\\|');
@@ -94,7 +90,8 @@ export function renderFactorTables(result: FactorResult, prov: FactorProvenance,
       return [{ name: `${base}.csv`, text: csv(ROW_COLS, result.rows, head) },
         { name: `${base}-summary.csv`, text: csv(SUM_COLS, result.summary, head) }];
     case 'json':
-      return [{ name: `${base}.json`, text: JSON.stringify({ provenance: prov, rows: result.rows, summary: result.summary,
+      return [{ name: `${base}.json`, text: JSON.stringify({ provenance: prov, rows: result.rows.map((r) => ({ ...r, plane: r.plane + 1 })),
+        summary: result.summary.map((r) => ({ ...r, plane: r.plane + 1 })),
         regions: result.regions }, null, 2) + '\n' }];
     case 'md':
       return [{ name: `${base}.md`, text: [`# Extrapolation factors: ${result.measured} to ${result.targets.join(', ')}`, '',

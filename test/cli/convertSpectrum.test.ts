@@ -20,17 +20,17 @@ describe('skyspan convert-spectrum', () => {
 
   it('rule: all-flavour neutrinos at E/2 are 6 I_gamma(E) (Ahlers & Halzen 2018), in the requested units, with the KAB value beside', async () => {
     const io = capture();
-    const code = await runCli(['convert-spectrum', file, '--method', 'rule', '--json', '--unit', 'TeV^-1 cm^-2 s^-1 sr^-1'], io);
+    const code = await runCli(['convert-spectrum', file, '--method', 'kpi', '--json', '--unit', 'TeV^-1 cm^-2 s^-1 sr^-1'], io);
     expect(io.stderr).toBe('');
     expect(code).toBe(0);
     const doc = JSON.parse(io.stdout);
-    expect(doc.method).toBe('kpiRule');
+    expect(doc.method).toBe('kpi');
     expect(doc.columns.slice(0, 2)).toEqual(['energy', 'nu_all']);
     expect(doc.rows[0][0]).toBeCloseTo(0.5, 10);
     expect(doc.rows[0][1] / 1e-12).toBeCloseTo(6, 4);
     // KAB / rule for E^-2 to E^-2.7 spectra: 0.71 to 0.81 (computed with scipy from the KAB 2006 forms, eqs. 58-69 and 79;
     // see test/physics/hadronic/emissivity.test.ts); the window is wide because the CLI goes through the proton fit.
-    const iKab = doc.columns.indexOf('kab_over_rule');
+    const iKab = doc.columns.indexOf('kab_over_kpi');
     expect(doc.rows[2][iKab]).toBeGreaterThan(0.6);
     expect(doc.rows[2][iKab]).toBeLessThan(1);
   });
@@ -40,7 +40,7 @@ describe('skyspan convert-spectrum', () => {
     const io = capture();
     expect(await runCli(['convert-spectrum', file, '-o', out], io)).toBe(0);
     for (const ext of ['.csv', '.md', '.json', '.plot.json']) expect(existsSync(out + ext)).toBe(true);
-    expect(readFileSync(out + '.csv', 'utf8')).toMatch(/# method: kab2006/);
+    expect(readFileSync(out + '.csv', 'utf8')).toMatch(/# method: kab /);
     expect(readFileSync(out + '.md', 'utf8')).toMatch(/\| energy \| nu_all \|/);
     const plot = JSON.parse(readFileSync(out + '.plot.json', 'utf8'));
     expect(plot.points).toHaveLength(2);
@@ -58,7 +58,7 @@ describe('skyspan convert-spectrum', () => {
 
   it('reverse direction and bad input', async () => {
     const io = capture();
-    expect(await runCli(['convert-spectrum', file, '--to', 'gamma', '--method', 'rule', '--json'], io)).toBe(0);
+    expect(await runCli(['convert-spectrum', file, '--to', 'gamma', '--method', 'kpi', '--json'], io)).toBe(0);
     const doc = JSON.parse(io.stdout);
     expect(doc.rows[0][0]).toBeCloseTo(2, 10);
     expect(doc.rows[0][1] / 1e-15).toBeCloseTo(1 / 6, 4); // default unit GeV^-1: 1e-12 TeV^-1 = 1e-15 GeV^-1

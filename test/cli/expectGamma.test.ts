@@ -16,7 +16,7 @@ describe('skyspan expect-gamma', () => {
       { out: (t) => { out.push(t); }, err: () => {} });
     expect(code).toBe(0);
     const doc = JSON.parse(out.join(''));
-    const iE = doc.columns.indexOf('energyGeV'), iK = doc.columns.indexOf('method_kpi');
+    const iE = doc.columns.indexOf('energyGeV'), iK = doc.columns.indexOf('methodKpi');
     expect(iK).toBeGreaterThan(0);
     expect(doc.rows.length).toBeGreaterThan(0);
     for (const row of doc.rows) {

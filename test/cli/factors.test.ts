@@ -58,11 +58,11 @@ describe('skyspan factors', () => {
     expect(csv).toContain('# assumption: The sky outside the measured region is assumed to look like each template');
     expect(csv).toMatch(/# Nside: 16; frame: galactic/);
     const header = lines.find((l) => !l.startsWith('#'))!.split(',');
-    expect(header).toContain('k_I');
+    expect(header).toContain('kI');
     const body = lines.filter((l) => l && !l.startsWith('#')).slice(1);
     expect(body).toHaveLength(2 * 2); // 2 templates x 2 targets
     const summary = readFileSync(join(out, 'factors-summary.csv'), 'utf8');
-    expect(summary).toMatch(/\nstrip,0,,kI,2,/);
+    expect(summary).toMatch(/\nstrip,1,,kI,2,/);
     const json = JSON.parse(readFileSync(join(out, 'factors.json'), 'utf8'));
     expect(json.provenance.inputs.map((i: { sha256: string }) => i.sha256)).toContain(sha(join(models, 'beta.fits')));
     expect(json.provenance.regionSpec.regions.strip).toEqual({ band: { absLatDeg: [0, 4] } });

@@ -36,7 +36,7 @@ describe('skyspan info', () => {
     expect(j.maps.map((m: any) => m.column)).toEqual(['A', 'B']);
     const a = j.maps[0].planes[0];
     // Pixels 12..47 hold their index: mean (12 + 47) / 2 = 29.5, 12 blanks, 36/48 of the sky.
-    expect(a).toMatchObject({ min: 12, max: 47, mean: 29.5, blankCount: 12, validCount: 36, skyFraction: 0.75 });
+    expect(a).toMatchObject({ min: 12, max: 47, mean: 29.5, blankCount: 12, validCount: 36, validSkyFraction: 0.75 });
   });
 
   it('prints a readable summary, with the energy planes of a cube', async () => {
@@ -46,8 +46,20 @@ describe('skyspan info', () => {
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/HEALPix map: Nside 1, RING, frame galactic \(COORDSYS G\), IMPLICIT indexing/);
     expect(r.out).toMatch(/map CUBE .*2 energy planes/);
-    expect(r.out).toMatch(/at 100 GeV: min 3, mean 3, max 3; 0 blank of 12; sky covered 100.00%/);
+    expect(r.out).toMatch(/plane 2 at 100 GeV: min 3, mean 3, max 3; 0 blank of 12; not blank on 100.00% of the sky, non-zero on 100.00%/);
     expect(r.out).toMatch(/HDU 2 bintable ENERGIES/);
+  });
+
+  it('reports the fraction of the sky a mask covers at all (non-zero pixels), beside the non-blank fraction', async () => {
+    // 1 of 48 pixels non-zero: 1/48 = 2.08 % of the sky (HEALPix pixels have equal area, Gorski et al. 2005).
+    const maskPath = join(dir, 'mask.fits');
+    const f = new Float32Array(48); f[7] = 0.25; f[9] = BLANK; // a blank pixel is neither covered nor zero
+    writeMapFile(maskPath, testMap(2, { column: 'FRACTION', planes: [f] }));
+    const r = await cli(['info', maskPath]);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/not blank on 97.92% of the sky, non-zero on 2.08%/);
+    const j = JSON.parse((await cli(['info', maskPath, '--json'])).out);
+    expect(Math.abs(j.maps[0].planes[0].nonZeroSkyFraction / (1 / 48) - 1)).toBeLessThan(1e-12);
   });
 
   it('describes an image file and a table that hold no HEALPix map', async () => {

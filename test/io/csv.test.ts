@@ -21,8 +21,8 @@ describe('parseCsv', () => {
     expect(t.rowNumbers).toEqual([3, 6, 8]);
   });
   it('names the line of a row with the wrong field count, and an unclosed quote', () => {
-    expect(() => parseCsv('a,b\n1,2\n3\n', 'c.csv')).toThrow(/c\.csv, row 3: has 1 fields, the header has 2/);
-    expect(() => parseCsv('a,b\n"1,2\n', 'c.csv')).toThrow(/c\.csv, row 2: a quoted field has no closing quote/);
+    expect(() => parseCsv('a,b\n1,2\n3\n', 'c.csv')).toThrow(/c\.csv, line 3: has 1 fields, the header has 2/);
+    expect(() => parseCsv('a,b\n"1,2\n', 'c.csv')).toThrow(/c\.csv, line 2: a quoted field has no closing quote/);
     expect(() => parseCsv('# only\n', 'c.csv')).toThrow(/has no header line/);
   });
   it('reads a file, dropping a byte-order mark', () => {

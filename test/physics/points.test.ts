@@ -47,13 +47,13 @@ describe('parseSpectrumPoints', () => {
   });
   it('bad rows report the file line', () => {
     const text = '# energy_unit: TeV\n# value_unit: TeV^-1 cm^-2 s^-1 sr^-1\nenergy,value,err\n1,1e-12,1e-13\n2,abc,1e-13\n';
-    expect(() => parseSpectrumPoints(text, 'pts.csv')).toThrow(/pts\.csv, row 5, keyword value/);
-    expect(() => parseSpectrumPoints(text.replace('abc', '-1'), 'pts.csv')).toThrow(/row 5/);
+    expect(() => parseSpectrumPoints(text, 'pts.csv')).toThrow(/pts\.csv, line 5, keyword value/);
+    expect(() => parseSpectrumPoints(text.replace('abc', '-1'), 'pts.csv')).toThrow(/line 5/);
     expect(() => parseSpectrumPoints('energy,value,err\n1,1,1\n', 'p.csv')).toThrow(/no energy unit/);
     expect(() => parseSpectrumPoints('# energy_unit: cm\n# value_unit: TeV^-1 cm^-2 s^-1 sr^-1\nenergy,value,err\n1,1,1\n', 'p.csv'))
       .toThrow(InputError);
     expect(() => parseSpectrumPoints('# energy_unit: TeV\n# value_unit: TeV^-1 cm^-2 s^-1\nenergy,value,err\n1,1,1\n', 'p.csv'))
-      .toThrow(/row 4: "TeV\^-1 cm\^-2 s\^-1" is not an intensity unit/);
+      .toThrow(/line 4: "TeV\^-1 cm\^-2 s\^-1" is not an intensity unit/);
   });
 });
 

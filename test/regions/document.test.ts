@@ -47,7 +47,7 @@ describe('region files: parsing', () => {
 describe('region files: every bad input is one line naming the key path', () => {
   it('unknown key', () => {
     expect(failure('regions:\n  a:\n    box: { frame: galactic, lonDeg: [0, 10], latDegs: [0, 1] }\n'))
-      .toBe("r.yaml, key regions.a.box.latDegs: found unknown key 'latDegs', expected one of: frame, lonDeg, latDeg");
+      .toBe("r.yaml, key regions.a.box.latDegs: found unknown key 'latDegs', expected one of: frame, lonDeg, latDeg (did you mean 'latDeg'?)");
     expect(failure('regions:\n  a:\n    boks: { frame: galactic }\n')).toMatch(/^r\.yaml, key regions\.a\.boks: found unknown key 'boks', expected one of: sky, site, box/);
   });
 
@@ -101,7 +101,7 @@ describe('region files: every bad input is one line naming the key path', () => 
     expect(failure('regions:\n  a:\n    band: { absLatDeg: [0, 4] }\n')).toContain('key regions.a.band.frame: found no frame');
     expect(failure('regions:\n  a: { any: [ { site: { latDeg: 30, maxZenithDeg: 40, weight: zenith } } ] }\n'))
       .toContain('key regions.a.any[0].site.weight: found a weighted site under any or except');
-    expect(failure('region:\n  a: { sky: true }\n')).toContain('key regions: found nothing (missing key), expected a map of named regions');
+    expect(failure('region:\n  a: { sky: true }\n')).toContain("key region: found unknown key 'region', expected one of: frame, regions (did you mean 'regions'?)");
     expect(failure('regions:\n  a: { sky: true\n')).toMatch(/^r\.yaml: not valid YAML or JSON at line \d/);
   });
 
@@ -115,16 +115,16 @@ describe('region files: every bad input is one line naming the key path', () => 
 
     it('bad row, with its row number (file line)', () => {
       expect(failure('regions:\n  a:\n    sources: { file: c.csv, radiusDeg: 1 }\n', rf))
-        .toBe(`${join(dir, 'c.csv')}, row 4: column lat: found "91", expected a latitude from -90 to 90 deg`);
-      expect(failure('regions:\n  a:\n    sources: { file: d.csv }\n', rf)).toContain('row 2: column radius: found "-1", expected a radius above 0');
-      expect(failure('regions:\n  a:\n    sources: { file: e.csv }\n', rf)).toContain('row 2: column frame: found "gal", expected galactic or equatorial');
-      expect(failure('regions:\n  a:\n    sources: { file: f.csv }\n', rf)).toContain('row 2: column lon: found "abc"');
+        .toBe(`${join(dir, 'c.csv')}, line 4: column lat: found "91", expected a latitude from -90 to 90 deg`);
+      expect(failure('regions:\n  a:\n    sources: { file: d.csv }\n', rf)).toContain('line 2: column radius: found "-1", expected a radius above 0');
+      expect(failure('regions:\n  a:\n    sources: { file: e.csv }\n', rf)).toContain('line 2: column frame: found "gal", expected galactic or equatorial');
+      expect(failure('regions:\n  a:\n    sources: { file: f.csv }\n', rf)).toContain('line 2: column lon: found "abc"');
     });
 
     it('unknown catalogue column', () => {
       expect(failure('regions:\n  a:\n    sources: { file: c.csv, radiusDeg: 1, columns: { lon: glon } }\n', rf))
-        .toBe(`${rf}, key regions.a.sources.columns.lon: found no column 'glon' in c.csv (its columns: name, lon, lat, frame), `
-          + 'expected the lon column (name the column with columns.lon)');
+        .toBe(`${rf}, key regions.a.sources.columns.lon: found no column 'glon' in the header of c.csv (line 1; its columns: name, lon, lat, frame), `
+          + "expected the lon column (did you mean 'lon'? name the column with columns.lon)");
       expect(failure('regions:\n  a:\n    sources: { file: c.csv }\n', rf)).toContain("key regions.a.sources.columns.radius: found no column 'radius'");
       expect(failure('regions:\n  a:\n    sources: { file: e.csv, psfDeg: 0.2 }\n', rf)).toContain('key regions.a.sources.psfTimes: found only psfDeg');
     });

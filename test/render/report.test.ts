@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { renderReport, type ReportContent } from '../../src/render/report.js';
+import { renderReport, richText, type ReportContent } from '../../src/render/report.js';
 import { renderSpectrumSvg } from '../../src/render/spectrumSvg.js';
 import { renderSkyMap } from '../../src/render/skyImage.js';
 import { fieldMap } from './fixtures.js';
@@ -36,7 +36,7 @@ describe('HTML report', () => {
     expect(html).not.toContain('<b>scenario');
   });
   it('has the sections, the table cells and the key figure', () => {
-    for (const h of ['Assumptions', 'Tables', 'Figures', 'Provenance']) expect(html).toContain(`<h2>${h}</h2>`);
+    for (const h of ['Assumptions', 'Tables', 'Sky map and other figures', 'Provenance']) expect(html).toContain(`<h2>${h}</h2>`);
     expect(html).toContain('<td class="num">1.235</td>');
     expect(html).toContain('<td class="num">2.500e-9</td>');
     expect(html).toContain('data-value="0.62"');
@@ -47,6 +47,24 @@ describe('HTML report', () => {
     const [p, s] = [...html.matchAll(/src="data:image\/[^;]+;base64,([^"]+)"/g)].map((m) => Buffer.from(m[1], 'base64'));
     expect(p.equals(png)).toBe(true);
     expect(s.toString('utf8')).toBe(svg);
+  });
+  it('reads top-down: headline, scaled results, regions, footprint, spectra, tables, then warnings grouped by cause', () => {
+    const full = renderReport({ ...content,
+      results: [{ id: 'scaled-results', caption: 'Scaled', columns: ['target', 'I_B median'], rows: [['plane', 1e-9]] }],
+      regions: ["measured region: 'a' is the box l 20 to 80 deg."],
+      figures: [{ caption: 'Spectrum', svg, section: 'spectra', id: 'fig-spectrum' }, { caption: 'Map', png, section: 'other' },
+        { caption: 'Footprint', png, section: 'footprint', id: 'fig-footprint' }],
+      messages: [{ kind: 'warning', text: 'cause one', count: 4 }] });
+    const at = (s: string) => { const i = full.indexOf(s); expect(i).toBeGreaterThan(-1); return i; };
+    const order = ['id="headline"', 'id="scaled"', 'id="regions"', 'id="fig-footprint"', 'id="fig-spectrum"', 'id="tables"', 'id="messages"'].map(at);
+    expect([...order].sort((a, b) => a - b)).toEqual(order);
+    expect(full).toContain('<strong>warning</strong> (4\u00d7): cause one');
+    expect(full).toContain('<figcaption><strong>Figure 1.</strong> Footprint</figcaption>');
+  });
+  it('typesets units and symbols: superscripts in text, subscripts in headings (common practice, no source)', () => {
+    expect(richText('E^2 I in GeV cm^-2 s^-1 sr^-1')).toBe('E<sup>2</sup> I in GeV cm<sup>\u2212' + '2</sup> s<sup>\u22121</sup> sr<sup>\u22121</sup>');
+    expect(richText('k_I and Omega_A (sr) and k_4pi', true)).toBe('k<sub>I</sub> and \u03a9<sub>A</sub> (sr) and k<sub>4\u03c0</sub>');
+    expect(richText("template 'gas_cr'")).toBe('template &#39;gas_cr&#39;');
   });
   it('is deterministic', () => {
     expect(renderReport(content)).toBe(html);

@@ -144,7 +144,7 @@ describe('Mollweide sky picture', () => {
 
   it('rejects a plane that does not exist and a bad width', () => {
     const map = fieldMap(8, () => 1);
-    expect(() => renderSkyMap(map, { plane: 1 })).toThrow(/plane 1 does not exist/);
+    expect(() => renderSkyMap(map, { plane: 1 })).toThrow(/plane 2 does not exist: the map has 1 plane\(s\), numbered from 1/);
     expect(() => renderSkyMap(map, { width: 100 })).toThrow(/width is 100/);
   });
 });

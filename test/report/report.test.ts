@@ -3,7 +3,9 @@
  * driven by playwright-core): the page opens with no console errors and no
  * network request, every image has loaded (naturalWidth > 0), the headline
  * numbers shown equal those in results.json, and a screenshot is saved in
- * the output folder (test/report/output/). Under CI=true a missing Chromium
+ * the output folder (test/report/output/). The sections come in reading
+ * order, and in both spectrum figures the legend's box overlaps no data
+ * path's box (common practice, no source). Under CI=true a missing Chromium
  * fails the test; otherwise it is skipped.
  */
 import { existsSync, mkdirSync, readFileSync, statSync } from 'node:fs';
@@ -21,7 +23,7 @@ if (!have && process.env.CI === 'true') throw new Error(`${CHROMIUM} is missing;
 
 describe.skipIf(!have)('report in headless Chromium', () => {
   it('opens cleanly, shows every image and the numbers of results.json', async () => {
-    const fx = makePlanFixture();
+    const fx = makePlanFixture({ extra: 'forecast:\n  footprint: measured\n  energiesTeV: [40, 100, 200]' });
     const out = join(fx.dir, 'out');
     const run = await runPlan(fx.plan, { outDir: out, cache: false });
     const results = JSON.parse(readFileSync(run.results, 'utf8'));
@@ -52,6 +54,29 @@ describe.skipIf(!have)('report in headless Chromium', () => {
       const headline = await page.$eval('#headline', (e) => e.textContent ?? '');
       expect(headline).toContain(h.ratioMedian.toPrecision(3));
       expect(headline).toContain(`${h.tensionSigma.toFixed(2)} sigma`);
+      // Reading order: headline, scaled results, regions, footprint picture, spectra, then the tables.
+      const tops = await page.$$eval(['#headline', '#scaled', '#regions', '#fig-footprint', '#fig-spectrum', '#tables'].join(','),
+        (els) => els.map((e) => [e.id, e.getBoundingClientRect().top] as [string, number]));
+      expect(tops.map(([id]) => id)).toEqual(['headline', 'scaled', 'regions', 'fig-footprint', 'fig-spectrum', 'tables']);
+      for (let i = 1; i < tops.length; i++) expect(tops[i][1]).toBeGreaterThan(tops[i - 1][1]);
+      // No legend box overlaps a data path's box, in each spectrum figure as the browser lays it out.
+      for (const name of ['spectrum.svg', 'forecast.svg']) {
+        const fig = await browser.newPage();
+        await fig.setContent(readFileSync(join(out, name), 'utf8'));
+        type Box = { l: number; r: number; t: number; b: number };
+        const boxesOf = (sel: string) => fig.$$eval(sel, (els) => els.map((e) => {
+          const r = (e as unknown as { getBoundingClientRect(): { left: number; right: number; top: number; bottom: number } }).getBoundingClientRect();
+          return { l: r.left, r: r.right, t: r.top, b: r.bottom } as Box;
+        }));
+        const legends = await boxesOf('[data-role="legend"]');
+        const boxes = { legend: legends[0] ?? null,
+          data: await boxesOf('[data-role="band"],[data-role="band-central"],[data-role="point"],[data-role="upper-limit"],[data-role="error-bar"]') };
+        await fig.close();
+        expect(boxes.legend).not.toBeNull();
+        expect(boxes.data.length).toBeGreaterThan(0);
+        const L = boxes.legend!;
+        for (const d of boxes.data) expect(d.r <= L.l || d.l >= L.r || d.b <= L.t || d.t >= L.b).toBe(true);
+      }
       const shotDir = join(import.meta.dirname, 'output');
       mkdirSync(shotDir, { recursive: true });
       const shot = join(shotDir, 'report.png');

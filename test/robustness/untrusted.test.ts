@@ -87,7 +87,7 @@ describe('blank and NaN pixels inside the measured region', () => {
     const csv = readFileSync(join(out, 'factors.csv'), 'utf8');
     const lines = csv.split('\n').filter((l) => l && !l.startsWith('#'));
     const header = lines[0].split(',');
-    expect(lines[1].split(',')[header.indexOf('blank_measured')]).toBe('9');
+    expect(lines[1].split(',')[header.indexOf('blankMeasured')]).toBe('9');
     for (const [f, t] of allText(out)) expect(t, `${f} lacks the warning`).toContain('9 blank pixels');
     expectNoNonFinite(out);
   });

@@ -19,7 +19,7 @@ describe('factor table text', () => {
   it('CSV quotes fields with commas and quotes, and starts with the provenance comment', () => {
     const [rows] = renderFactorTables(result, prov, 'csv');
     expect(rows.text.startsWith('# made by skyspan 0.1.0 on 2026-01-02T03:04:05.000Z\n')).toBe(true);
-    expect(rows.text).toContain('"odd_name, ""x"" & 100%",0,,sky,');
+    expect(rows.text).toContain('"odd_name, ""x"" & 100%",1,,sky,');
     expect(rows.text).toContain(`# input (template): x.fits sha256 ${'ab'.repeat(32)}`);
   });
   it('LaTeX escapes special characters and uses booktabs rules', () => {

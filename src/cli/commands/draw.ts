@@ -17,7 +17,7 @@ import { readRegionFile } from '../options.js';
 
 interface Options {
   out: string; column?: string; plane: string; scale: string; min?: string; max?: string; softening?: string;
-  colours: string; frame?: string; mapFrame?: string; centre: string; regions?: string; outline?: string; shade?: string;
+  colours: string; frame?: string; mapFrame?: string; viewLon: string; regions?: string; outline?: string; shade?: string;
   regionNside: string; width: string; zoom?: string; title?: string; unit?: string; graticule: boolean; force?: boolean; json?: boolean;
 }
 
@@ -75,7 +75,7 @@ function action(mapFile: string, o: Options, io: CliIo): void {
     width: int('--width', o.width), plane: int('--plane', o.plane) - 1, scale,
     min: o.min === undefined ? undefined : num('--min', o.min), max: o.max === undefined ? undefined : num('--max', o.max),
     softening: o.softening === undefined ? undefined : num('--softening', o.softening),
-    colourMap: o.colours, frame, centreLonDeg: num('--centre', o.centre), zoom: o.zoom ? parseZoom(o.zoom) : undefined,
+    colourMap: o.colours, frame, viewLonDeg: num('--view-lon', o.viewLon), zoom: o.zoom ? parseZoom(o.zoom) : undefined,
     graticule: o.graticule, title: o.title, unit: o.unit,
     outlines: o.regions ? overlays(o.regions, o.outline, regionNside) : [],
     shades: o.regions ? overlays(o.regions, o.shade, regionNside) : [],
@@ -106,7 +106,7 @@ export function register(program: Command, io: CliIo): void {
     .option('--colours <name>', 'colour map: magma, viridis, cividis or inferno', 'magma')
     .option('--frame <frame>', 'display frame: galactic or equatorial (default: the map\'s)')
     .option('--map-frame <frame>', 'frame of the map when the file does not say (no COORDSYS)')
-    .option('--centre <deg>', 'longitude at the picture centre (Mollweide)', '0')
+    .option('--view-lon <deg>', 'longitude in the middle of a Mollweide picture', '0')
     .option('--regions <file>', 'region file (YAML or JSON) for --outline and --shade')
     .option('--outline <names>', 'comma-separated regions to outline (boundary of covered fraction > 0.5)')
     .option('--shade <names>', 'comma-separated regions to hatch (e.g. masked sources)')

@@ -8,6 +8,7 @@
 import type { Command } from 'commander';
 import { join } from 'node:path';
 import { UsageError } from '../../core/errors.js';
+import { formatCsv } from '../../io/csvWrite.js';
 import { parseFlavourRatio } from '../../physics/hadronic/flavour.js';
 import { readFactors } from '../../compare/factorsFile.js';
 import { readMeasurement } from '../../compare/measurement.js';
@@ -31,7 +32,8 @@ function action(o: Options, io: CliIo): void {
   const fac = readFactors(o.factors, { target: o.target });
   const r = expectedGamma({ measurement: m, factors: fac.factors, methods, channel: o.channel as 'pp' | 'pgamma',
     flavourRatio: parseFlavourRatio(o.flavourRatio), samples, seed });
-  const header = ['energyGeV', ...r.components.flatMap((c) => [`${c.name}_p16`, `${c.name}_p50`, `${c.name}_p84`]), ...r.methods.map((x) => `method_${x.id}`)];
+  const header = ['energyGeV', ...r.components.flatMap((c) => [`${c.name}P16`, `${c.name}Median`, `${c.name}P84`]),
+    ...r.methods.map((x) => `method${x.id[0].toUpperCase()}${x.id.slice(1)}`)];
   const rows = Array.from(r.energiesGammaGeV, (e, j) => [fmt(e), ...r.components.flatMap((c) => [c.atEnergies[j].p16, c.atEnergies[j].median, c.atEnergies[j].p84].map(fmt)),
     ...r.methods.map((x) => fmt(x.atEnergies[j]))]);
   const info = [`expected gamma-ray intensity in the survey footprint, GeV^-1 cm^-2 s^-1 sr^-1; ${r.samples} samples, seed ${r.seed}`,
@@ -39,7 +41,7 @@ function action(o: Options, io: CliIo): void {
   const doc = { neutrino: o.neutrino, factors: o.factors, target: fac.target ?? null, columns: header,
     rows: rows.map((c) => c.map((v) => (v === '' ? null : Number(v)))), assumptions: r.assumptions, notes: r.notes, warnings: r.warnings, samples: r.samples, seed: r.seed };
   const files: { name: string; text: string }[] = [];
-  if (formats.includes('csv')) files.push({ name: 'expected-gamma.csv', text: info.map((l) => `# ${l}\n`).join('') + [header, ...rows].map((c) => c.join(',')).join('\n') + '\n' });
+  if (formats.includes('csv')) files.push({ name: 'expected-gamma.csv', text: formatCsv(header, rows, { comments: info }) });
   if (formats.includes('md')) files.push({ name: 'expected-gamma.md', text: '# Expected gamma rays in the survey footprint\n\n' + info.map((l) => `- ${l}\n`).join('')
     + `\n| ${header.join(' | ')} |\n|${header.map(() => ' --- |').join('')}\n` + rows.map((c) => `| ${c.join(' | ')} |`).join('\n') + '\n' });
   if (formats.includes('json')) files.push({ name: 'expected-gamma.json', text: JSON.stringify(doc, null, 2) + '\n' });

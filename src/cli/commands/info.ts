@@ -2,7 +2,8 @@
  * `skyspan info FILE`: what a FITS file holds. Every HDU (kind, name, size,
  * columns and units); for a HEALPix map its Nside, ordering, frame, indexing,
  * energy planes, and per column and plane the min/mean/max of the non-blank
- * pixels, the blank count and the fraction of the sky covered. A file without
+ * pixels, the blank count, and the fractions of the sky that are not blank
+ * and that are non-zero (for a mask, the sky it covers at all). A file without
  * a HEALPix map is described, not refused. The file is streamed once, in
  * bounded memory whatever its size.
  */
@@ -11,11 +12,17 @@ import { describeFitsFileStreamed, type DescribedMap, type StreamedDescription }
 import type { CliIo } from '../main.js';
 
 /** Per-plane figures shown by info. */
-interface PlaneInfo { energyGeV: number | null; min: number; mean: number; max: number; blankCount: number; validCount: number; skyFraction: number }
+interface PlaneInfo {
+  energyGeV: number | null; min: number; mean: number; max: number; blankCount: number; validCount: number;
+  /** Fraction of the sky's pixels that are not blank. */
+  validSkyFraction: number;
+  /** Fraction of the sky's pixels with a non-zero value (for a mask: the sky it covers at all). */
+  nonZeroSkyFraction: number;
+}
 
 function mapInfo(m: DescribedMap) {
   const planes: PlaneInfo[] = m.planes.map((s, k) => ({ energyGeV: m.energiesGeV ? m.energiesGeV[k] : null, min: s.min, mean: s.mean, max: s.max,
-    blankCount: s.blankCount, validCount: s.validCount, skyFraction: s.validCount / m.pixels }));
+    blankCount: s.blankCount, validCount: s.validCount, validSkyFraction: s.validCount / m.pixels, nonZeroSkyFraction: s.nonZeroCount / m.pixels }));
   return { column: m.column, unit: m.unit, nside: m.nside, ordering: m.ordering, frame: m.frame,
     pixels: m.pixels, energiesGeV: m.energiesGeV ? Array.from(m.energiesGeV) : null, planes };
 }
@@ -40,9 +47,10 @@ function text(d: StreamedDescription, maps: ReturnType<typeof mapInfo>[]): strin
   for (const m of maps) {
     const cube = m.energiesGeV ? `, ${m.planes.length} energy planes` : '';
     lines.push(`  map ${m.column}${m.unit ? ` [${m.unit}]` : ''}${cube}`);
-    for (const p of m.planes) {
-      const e = p.energyGeV === null ? '' : `at ${g(p.energyGeV)} GeV: `;
-      lines.push(`    ${e}min ${g(p.min)}, mean ${g(p.mean)}, max ${g(p.max)}; ${p.blankCount} blank of ${m.pixels}; sky covered ${(100 * p.skyFraction).toFixed(2)}%`);
+    for (const [k, p] of m.planes.entries()) {
+      // Planes are numbered from 1, with their energy when the file gives it.
+      const e = m.planes.length > 1 || p.energyGeV !== null ? `plane ${k + 1}${p.energyGeV === null ? '' : ` at ${g(p.energyGeV)} GeV`}: ` : '';
+      lines.push(`    ${e}min ${g(p.min)}, mean ${g(p.mean)}, max ${g(p.max)}; ${p.blankCount} blank of ${m.pixels}; not blank on ${(100 * p.validSkyFraction).toFixed(2)}% of the sky, non-zero on ${(100 * p.nonZeroSkyFraction).toFixed(2)}%`);
     }
   }
   return lines.join('\n') + '\n';
