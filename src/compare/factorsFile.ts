@@ -43,7 +43,7 @@ function fromRows(rows: unknown[], file: string, opts: { target?: string }): Fac
       factors.push({ template, kIByEnergy: { energiesGeV: sorted.map((r) => r.energyGeV as number), values: sorted.map((r) => r.kI) } });
       continue;
     }
-    const best = list.find((r) => r.plane === 0) ?? list[0];
+    const best = list.find((r) => r.plane === 1) ?? list[0]; // planes are 1-based in factor tables
     if (list.length > 1) notes.push(`template '${template}': plane ${best.plane} of ${list.length} used (the planes carry no energy)`);
     factors.push({ template, kI: best.kI });
   }

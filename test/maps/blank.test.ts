@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { isBlank, countBlanks } from '../../src/maps/blank.js';
-import { planeStats } from '../../src/maps/stats.js';
+import { finishStats, newStatsState, planeStats, statsBlock } from '../../src/maps/stats.js';
 import { BLANK } from '../../src/maps/skyMap.js';
 
 describe('isBlank / countBlanks', () => {
@@ -27,7 +27,14 @@ describe('isBlank / countBlanks', () => {
 describe('planeStats', () => {
   it('excludes and counts blanks', () => {
     const s = planeStats(new Float64Array([1, 2, NaN, BLANK, 6]));
-    expect(s).toEqual({ min: 1, max: 6, mean: 3, validCount: 3, blankCount: 2 });
+    expect(s).toEqual({ min: 1, max: 6, mean: 3, validCount: 3, blankCount: 2, nonZeroCount: 3 });
+  });
+  it('counts the valid non-zero values (a mask\'s covered pixels), in one call or in pieces', () => {
+    const p = new Float64Array([0, 0.5, BLANK, 0, 1, NaN, -0, 2]);
+    expect(planeStats(p).nonZeroCount).toBe(3);
+    const st = newStatsState();
+    statsBlock(p, 0, 3, st); statsBlock(p, 3, p.length, st);
+    expect(finishStats(st)).toEqual(planeStats(p));
   });
   it('gives NaN statistics for an all-blank plane', () => {
     const s = planeStats(new Float32Array([BLANK, NaN]));

@@ -69,6 +69,6 @@ describe('parseSpectrumPoints with factored units', () => {
   });
   it('refuses a zero factor in one line naming the file and row', () => {
     expect(() => parseSpectrumPoints('# energy_unit: 0 GeV\n# value_unit: GeV^-1 cm^-2 s^-1 sr^-1\nenergy,value,err\n10,4,1\n', 'f.csv'))
-      .toThrow(/^f\.csv, row 4: the energy unit "0 GeV" has the factor 0/);
+      .toThrow(/^f\.csv, line 4: the energy unit "0 GeV" has the factor 0/);
   });
 });
