@@ -9,7 +9,7 @@
 import { Command, CommanderError } from 'commander';
 import { isSkyspanError } from '../core/errors.js';
 import { resolve } from 'node:path';
-import { isMainThread, parentPort, workerData } from 'node:worker_threads';
+import { isMainThread, parentPort, workerData, type MessagePort } from 'node:worker_threads';
 import { finishedOutputs, onTemporaryFileEvent, pendingTemporaryFiles, removePendingTemporaryFiles } from '../io/atomicWrite.js';
 import { findCommand, registerCommands } from './commands/index.js';
 import { interruptMessage, runAsProgram, type WorkerMessage } from './program.js';
@@ -97,7 +97,8 @@ export function installSignalHandlers(io: CliIo): void {
 function runAsWorker(argv: string[]): void {
   const port = parentPort!;
   const send = (m: WorkerMessage) => port.postMessage(m);
-  onTemporaryFileEvent(send);
+  const temporaryPort = (workerData as { skyspanTemporaryPort?: MessagePort } | null)?.skyspanTemporaryPort;
+  onTemporaryFileEvent((e) => (temporaryPort ?? port).postMessage(e));
   runCli(argv, { out: (text) => send({ kind: 'out', text }), err: (text) => send({ kind: 'err', text }) })
     .then((code) => send({ kind: 'exit', code }));
 }

@@ -7,7 +7,7 @@
  * commands run in this thread (nothing to interrupt, no worker to start).
  */
 import { existsSync } from 'node:fs';
-import { Worker } from 'node:worker_threads';
+import { MessageChannel, receiveMessageOnPort, Worker } from 'node:worker_threads';
 import { removeTemporary, type TemporaryFileEvent } from '../io/atomicWrite.js';
 import { VERSION } from '../version.js';
 import { findCommand } from './commands/index.js';
@@ -58,15 +58,24 @@ export function runAsProgram(argv: string[]): void {
   const boot = self.endsWith('.ts')
     ? `import(${JSON.stringify(import.meta.resolve('tsx/esm/api'))}).then((m) => { m.register(); return import(${JSON.stringify(self)}); });`
     : `import(${JSON.stringify(self)});`;
-  const worker = new Worker(boot, { eval: true, workerData: { skyspanCliArgv: argv } });
+  // Temporary-file events come on a port of their own, which the signal handler drains
+  // synchronously (receiveMessageOnPort): a file the worker announced just before the
+  // signal is known even when its message has not been dispatched yet.
+  const events = new MessageChannel();
+  const worker = new Worker(boot, { eval: true, workerData: { skyspanCliArgv: argv, skyspanTemporaryPort: events.port2 }, transferList: [events.port2] });
   const inFlight = new Map<string, string>();
   const finished: string[] = [];
   let code = 1;
+  const onTemporary = (m: TemporaryFileEvent) => {
+    if (m.kind === 'start') inFlight.set(m.temporary, m.output);
+    else { inFlight.delete(m.temporary); if (m.kind === 'finish') finished.push(m.output); }
+  };
+  events.port1.on('message', onTemporary);
+  events.port1.unref();
   worker.on('message', (m: WorkerMessage) => {
     if ('text' in m) (m.kind === 'out' ? out : err)(m.text);
     else if (m.kind === 'exit') code = m.code;
-    else if (m.kind === 'start') inFlight.set(m.temporary, m.output);
-    else { inFlight.delete(m.temporary); if (m.kind === 'finish') finished.push(m.output); }
+    else onTemporary(m);
   });
   worker.on('error', (e) => {
     err(`skyspan: internal error: ${e.message} (run with SKYSPAN_SINGLE_THREAD=1 and --debug for the stack)\n`);
@@ -75,6 +84,7 @@ export function runAsProgram(argv: string[]): void {
   worker.on('exit', () => { process.exitCode = code; });
   for (const sig of ['SIGINT', 'SIGTERM'] as const) {
     process.on(sig, () => {
+      for (let m = receiveMessageOnPort(events.port1); m; m = receiveMessageOnPort(events.port1)) onTemporary(m.message as TemporaryFileEvent);
       const removed: string[] = [];
       for (const [tmp, output] of inFlight) {
         try { removeTemporary(tmp, output); removed.push(tmp); } catch {

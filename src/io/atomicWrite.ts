@@ -118,15 +118,19 @@ export function writeFileAtomic(
   const dir = dirname(path);
   const tmp = join(dir, `.${basename(path)}.${process.pid}.${Date.now().toString(36)}.tmp`);
   const write = options.writer ?? writeAll;
+  // Announced before the file exists, so an interrupt handler in another thread knows it
+  // by the time it can be seen on disk.
+  pending.add(tmp);
+  listener?.({ kind: 'start', temporary: tmp, output: path });
   let fd: number;
   try {
     fd = openSync(tmp, 'wx');
   } catch (e) {
+    pending.delete(tmp);
+    listener?.({ kind: 'abandon', temporary: tmp, output: path });
     throw new InputError(`cannot write here: ${(e as NodeJS.ErrnoException).code ?? String(e)}`, { file: path },
       'check that the folder exists and is writable');
   }
-  pending.add(tmp);
-  listener?.({ kind: 'start', temporary: tmp, output: path });
   try {
     const chunks: Iterable<Uint8Array> = typeof data === 'string' ? [Buffer.from(data, 'utf8')]
       : data instanceof Uint8Array ? [data] : data;
