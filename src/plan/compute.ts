@@ -17,6 +17,7 @@ import type { ResolvedPlan } from './loadPlan.js';
 import { cachedRegions, isWholeSky, regionSurvival } from './regionWeights.js';
 import { loadRunTemplates, type RunTemplate } from './templateStage.js';
 import { factorTables, factorsAtEnergy, type SurvivalTable } from './predictStage.js';
+import { streamRegionSurvival } from './survivalStream.js';
 import { factorTableSelection, planEnergies, uniqueSorted } from './planEnergies.js';
 import { projectOnNeutrinoTemplate, type TemplateProjectionResult } from './projectionStage.js';
 
@@ -80,16 +81,21 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
     isWholeSky: (n: string) => isWholeSky(rp.regions, n) };
   const factorTemplates = templates.map((t) => ({ name: t.name, map: t.map, weight: weights?.[t.name] }));
 
-  const survivalIn = (region: string, exposureWeighted: boolean, energies: number[]): SurvivalTable | null => {
+  const survivalIn = async (region: string, exposureWeighted: boolean, energies: number[]): Promise<SurvivalTable | null> => {
     if (!absorption || energies.length === 0) return null;
     const byTemplate: Record<string, number[]> = {};
     for (const t of templates) {
-      const a = t.absorbed!;
-      const frame = a.tAbs.frame === 'equatorial' ? 'equatorial' : 'galactic';
-      const w = evaluate(region, { nside: a.tAbs.nside, frame, mode: plan.coverage });
+      const inRegion = (nside: number, frame: 'galactic' | 'equatorial') => evaluate(region, { nside, frame, mode: plan.coverage });
+      const perPlane = t.survivalFile ? await streamRegionSurvival(t.survivalFile, t.map, inRegion, exposureWeighted, plan.templates.frame) : null;
       byTemplate[t.name] = energies.map((e) => {
-        const k = nearestPlane(a.tAbs.energiesGeV, e);
-        const p = regionSurvival(a.tAbs.planes[k], a.survival.planes[k], w, exposureWeighted);
+        let p: number;
+        if (perPlane) p = perPlane.survival[nearestPlane(perPlane.energiesGeV, e)];
+        else {
+          const a = t.absorbed!;
+          const frame = a.tAbs.frame === 'equatorial' ? 'equatorial' : 'galactic';
+          const k = nearestPlane(a.tAbs.energiesGeV, e);
+          p = regionSurvival(a.tAbs.planes[k], a.survival.planes[k], inRegion(a.tAbs.nside, frame), exposureWeighted);
+        }
         if (!(p > 0 && p <= 1 + 1e-12)) throw new ComputeError(`template '${t.name}': mean survival in region '${region}' at ${e} GeV is ${p}; expected a probability`);
         return Math.min(1, p);
       });
@@ -104,7 +110,7 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   const conv = { methods: plan.methods.conversion, channel: plan.methods.channel, flavourRatio: plan.methods.flavourRatio as [number, number, number] };
   if (points && plan.gamma) {
     factors = computeFactors({ ...regionsBase, templates: factorTemplates, ...factorTableSelection(rp, true) });
-    survival = survivalIn(plan.gamma.region, plan.gamma.exposureWeighted, predictionGammaEnergies);
+    survival = await survivalIn(plan.gamma.region, plan.gamma.exposureWeighted, predictionGammaEnergies);
     const ft = factorTables(templates, factors, plan.neutrino.region, survival, weights);
     notes.push(...ft.notes);
     factorsAtE0 = factorsAtEnergy(ft.factors, 2 * e0GeV);
@@ -120,7 +126,7 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   let forecastFactors: FactorResult | null = null, forecastSurvival: SurvivalTable | null = null, forecast: ReverseResult | null = null, fPer = false;
   if (plan.forecast) {
     forecastFactors = computeFactors({ ...regionsBase, templates: factorTemplates, ...factorTableSelection(rp, false) });
-    forecastSurvival = survivalIn(plan.forecast.footprint, plan.forecast.exposureWeighted, uniqueSorted(forecastEnergies));
+    forecastSurvival = await survivalIn(plan.forecast.footprint, plan.forecast.exposureWeighted, uniqueSorted(forecastEnergies));
     const ft = factorTables(templates, forecastFactors, plan.neutrino.region, forecastSurvival, weights);
     forecast = expectedGamma({ measurement: m, ...conv, ...mc, factors: ft.factors, energiesGammaGeV: uniqueSorted(forecastEnergies) });
     fPer = ft.factors.some((f) => f.kIByEnergy !== undefined || f.survivalByEnergy !== undefined);

@@ -9,7 +9,6 @@
 import { existsSync } from 'node:fs';
 import { InputError } from '../core/errors.js';
 import { sha256File } from '../io/hash.js';
-import { readSkyMap } from '../io/mapFile.js';
 import { createSkyMap } from '../maps/create.js';
 import type { SkyMap } from '../maps/skyMap.js';
 import { listTemplateFiles, readTemplateFiles } from '../scaling/templateFiles.js';
@@ -24,8 +23,10 @@ import type { ArtefactCache } from './cache.js';
 export interface RunTemplate {
   name: string;
   map: SkyMap;
-  /** Absorbed template (emission x survival) and survival map on one grid, with energies; null without absorption. */
+  /** Absorbed template (emission x survival) and survival map on one grid, with energies; null without absorption or with `survivalFile`. */
   absorbed: { tAbs: SkyMap; survival: SkyMap } | null;
+  /** With absorption, a template file's survival map beside it: streamed over each region when needed (survivalStream.ts), never held. */
+  survivalFile?: string;
   /** Where it came from: a file, a spec file, or 'shipped'. */
   origin: { kind: 'file' | 'spec' | 'shipped'; path: string; sha256: string };
   /** Its source's place among the run's template sources (files, then specs, then shipped; from 0) and its place within that source (map column). */
@@ -93,23 +94,18 @@ export async function loadRunTemplates(opts: {
     for (const t of readTemplateFiles(fileList.filter((_, i) => select(i)), { frame: opts.frame })) {
       const ordinal = ordinals.get(t.file) ?? 0;
       ordinals.set(t.file, ordinal + 1);
-      let absorbed: RunTemplate['absorbed'] = null;
+      let survivalFile: string | undefined;
       if (opts.absorption) {
         const sp = survivalPathFor(t.file);
         if (!existsSync(sp)) {
           throw new InputError(`template file ${t.file} has no survival map beside it (${sp})`, { file: opts.planFile, keyPath: 'templates.files' },
             'build it with absorption (skyspan build --absorption), name its spec under templates.build, or set methods.absorption: none');
         }
-        const survival = readSkyMap(sp, { frame: opts.frame });
-        if (!survival.energiesGeV) throw new InputError('survival map states no energies', { file: sp });
-        if (survival.nside !== t.map.nside || survival.planes.length !== survival.energiesGeV.length) {
-          throw new InputError(`survival map is at Nside ${survival.nside}, the template at ${t.map.nside}`, { file: sp });
-        }
-        const tAbs = { ...survival, planes: survival.planes.map((s, e) => Float64Array.from(s, (v, i) => v * t.map.planes[Math.min(e, t.map.planes.length - 1)][i])) };
-        absorbed = { tAbs, survival };
+        survivalFile = sp;
         notes.push(`template '${t.name}': survival from ${sp}`);
       }
-      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'file', path: t.file, sha256: t.sha256 }, source: { index: fileList.indexOf(t.file), ordinal } });
+      out.push({ name: t.name, map: t.map, absorbed: null, ...(survivalFile ? { survivalFile } : {}), origin: { kind: 'file', path: t.file, sha256: t.sha256 },
+        source: { index: fileList.indexOf(t.file), ordinal } });
     }
   }
   for (const [j, path] of opts.specs.entries()) {
