@@ -17,6 +17,12 @@ import type { RegionWeights } from '../../src/regions/types.js';
 import { nside2npix } from '../../src/sphere/nside.js';
 import { streamRegionSurvival, wholeRegionSurvival } from '../../src/plan/survivalStream.js';
 import { analyticTemplate, weightsFromPixels } from '../scaling/fixtures.js';
+import { readSkyMap } from '../../src/io/mapFile.js';
+import { evaluateRegion } from '../../src/regions/evaluate.js';
+import { loadPlan } from '../../src/plan/loadPlan.js';
+import { runPlan } from '../../src/plan/runPlan.js';
+import { survivalPathFor } from '../../src/templates/writeTemplate.js';
+import { makePlanFixture } from './fixture.js';
 import { tempDir } from '../helpers/tempDir.js';
 
 const NSIDE = 16, NPIX = nside2npix(NSIDE), ENERGIES = [3e4, 1e5, 3e5, 1e6];
@@ -96,4 +102,22 @@ describe('survival maps through the row-block stream', () => {
     expect(err).toBeInstanceOf(InputError);
     expect(String((err as Error).message)).toMatch(/coarse\.fits.*Nside 8, the template at 16/);
   });
+
+  it('a plan run\'s survival table holds, per template and energy, the whole-map value at the nearest survival plane', async () => {
+    const fx = makePlanFixture({ samples: 200 });
+    const r = await runPlan(fx.plan, { outDir: join(fx.dir, 'out'), cache: false });
+    const table = r.computation.survival!;
+    const doc = loadPlan(fx.plan).regions;
+    for (const name of ['narrow', 'wide']) {
+      const file = join(fx.templates, `${name}.fits`);
+      const whole = wholeRegionSurvival(survivalPathFor(file), readSkyMap(file), (nside, frame) => evaluateRegion(doc, 'measured', { nside, frame, mode: 'fraction' }), true);
+      const logE = Array.from(whole.energiesGeV, Math.log);
+      const expected = table.energiesGeV.map((e) => {
+        const k = logE.reduce((best, x, i) => (Math.abs(x - Math.log(e)) < Math.abs(logE[best] - Math.log(e)) ? i : best), 0);
+        return Math.min(1, whole.survival[k]);
+      });
+      expect(table.byTemplate[name]).toEqual(expected);
+      expect(new Set(expected).size).toBeGreaterThan(1);
+    }
+  }, 120_000);
 });
