@@ -85,4 +85,26 @@ describe('skyspan run --shard: the factor stage of a plan in shards', () => {
     expect(c.err.join('')).toMatch(/shard-2-of-2\.json: the plan file .* differs/);
     expect(c.err.join('').trim().split('\n')).toHaveLength(1);
   }, 120_000);
+
+  it('counts the shipped ensemble after the template files: two shards of a mixed plan merge into the whole run', async () => {
+    const fx = makePlanFixture({ absorption: 'none', samples: 200 });
+    writeFileSync(fx.plan, readFileSync(fx.plan, 'utf8').replace('  files: [templates]', '  files: [templates/narrow.fits]\n  shipped: true'));
+    const whole = await runPlan(fx.plan, { outDir: join(fx.dir, 'out'), cache: false });
+    const one = json(whole.computation.factors);
+    const parts = join(fx.dir, 'parts');
+    const files = [];
+    for (const k of [1, 2]) {
+      const c = capture();
+      expect(await runCli(['run', fx.plan, '--shard', `${k}/2`, '-o', parts, '--no-cache'], c.io), c.err.join('')).toBe(0);
+      files.push(join(parts, `factors-shard-${k}-of-2.json`));
+    }
+    const p2 = JSON.parse(readFileSync(files[1], 'utf8'));
+    expect(p2.read.every((r: { index: number; path: string }) => r.index % 2 === 1 && r.path.endsWith('.fits.gz'))).toBe(true);
+    const merged = capture();
+    expect(await runCli(['merge-factors', ...files, '--json'], merged.io), merged.err.join('')).toBe(0);
+    const m = JSON.parse(merged.out.join(''));
+    expect(new Set(one.rows.map((r: { template: string }) => r.template)).size).toBeGreaterThan(2);
+    for (const key of ['rows', 'summary', 'regions'] as const) expect(m[key]).toEqual(one[key]);
+    expect(m.provenance.notes).toEqual(one.notes);
+  }, 300_000);
 });
