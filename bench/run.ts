@@ -17,6 +17,7 @@ const suites: Record<string, () => Promise<unknown>> = {
   cache: async () => (await import('./cache.js')).benchCache(),
   projection: async () => (await import('./projection.js')).benchProjection(),
   streaming: async () => (await import('./streaming.js')).benchStreaming(),
+  survival: async () => (await import('./survival.js')).benchSurvival(),
 };
 
 const wanted = process.argv.slice(2);

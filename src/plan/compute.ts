@@ -5,7 +5,6 @@
  */
 import { ComputeError, InputError } from '../core/errors.js';
 import type { SpectrumPoints } from '../physics/points.js';
-import { readGammaPoints } from '../physics/fluxPoints/read.js';
 import { computeFactors } from '../scaling/factors.js';
 import type { FactorResult } from '../scaling/ensembleFactors.js';
 import type { TemplateFactor } from '../compare/ensemble.js';
@@ -18,6 +17,8 @@ import type { ResolvedPlan } from './loadPlan.js';
 import { cachedRegions, isWholeSky, regionSurvival } from './regionWeights.js';
 import { loadRunTemplates, type RunTemplate } from './templateStage.js';
 import { factorTables, factorsAtEnergy, type SurvivalTable } from './predictStage.js';
+import { streamRegionSurvival } from './survivalStream.js';
+import { factorTableSelection, planEnergies, uniqueSorted } from './planEnergies.js';
 import { projectOnNeutrinoTemplate, type TemplateProjectionResult } from './projectionStage.js';
 
 export type { SurvivalTable };
@@ -54,44 +55,14 @@ const nearestPlane = (energies: Float64Array | null, eGeV: number): number => {
   return best;
 };
 
-function uniqueSorted(xs: number[]): number[] {
-  const s = [...xs].sort((a, b) => a - b);
-  return s.filter((x, i) => i === 0 || Math.abs(x - s[i - 1]) > 1e-9 * x);
-}
-
 /** Runs the computations of a resolved plan. */
 export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promise<RunComputation> {
   const { plan } = rp;
   const m = rp.measurement;
   const absorption = plan.methods.absorption === 'cmb';
   const notes: string[] = [];
-  const points = rp.gammaPointsFile ? readGammaPoints(rp.gammaPointsFile) : null;
-  const e0GeV = plan.methods.referenceEnergyTeV !== undefined ? plan.methods.referenceEnergyTeV * 1e3
-    : m.kind !== 'points' ? m.e0GeV : Math.sqrt(Math.min(...m.points.map((p) => p.energyGeV)) * Math.max(...m.points.map((p) => p.energyGeV)));
-  let energiesNuGeV: number[] = [];
-  if (points) {
-    const meas = Array.from(points.energyGeV).filter((_, i) => !points.upperLimit[i]);
-    const lo = Math.min(...meas), hi = Math.max(...meas);
-    const wanted = [...meas.map((e) => e / 2), ...(m.kind === 'points' ? m.points.map((p) => p.energyGeV) : [])];
-    energiesNuGeV = uniqueSorted(wanted.filter((e) => 2 * e >= lo * (1 - 1e-9) && 2 * e <= hi * (1 + 1e-9)));
-    if (!(2 * e0GeV >= lo * (1 - 1e-9) && 2 * e0GeV <= hi * (1 + 1e-9))) {
-      throw new InputError(`reference energy ${e0GeV / 1e3} TeV: twice it lies outside the gamma-ray points (${lo / 1e3} to ${hi / 1e3} TeV)`,
-        { file: rp.file, keyPath: 'methods.referenceEnergyTeV' }, 'choose a reference energy between half the lowest and half the highest measured gamma-ray energy');
-    }
-  }
-  let forecastEnergies: number[] = [];
-  if (plan.forecast) {
-    if (plan.forecast.energiesTeV) forecastEnergies = plan.forecast.energiesTeV.map((e) => e * 1e3);
-    else {
-      const r = m.kind === 'points' ? [Math.min(...m.points.map((p) => p.energyGeV)), Math.max(...m.points.map((p) => p.energyGeV))]
-        : (m.energyRangeGeV ?? [m.e0GeV / 10, m.e0GeV * 10]);
-      forecastEnergies = Array.from({ length: 8 }, (_, i) => 2 * r[0] * Math.pow(r[1] / r[0], i / 7));
-    }
-  }
-  // the proton fit de-absorbs upper limits too: survival is needed at their energies
-  const ulEnergies = points ? Array.from(points.energyGeV).filter((_, i) => points.upperLimit[i]) : [];
-  const predictionGammaEnergies = points ? uniqueSorted([2 * e0GeV, ...energiesNuGeV.map((e) => 2 * e), ...ulEnergies]) : [];
-  const gammaEnergies = uniqueSorted([...predictionGammaEnergies, ...forecastEnergies]);
+  const { points, e0GeV, energiesNuGeV, forecastEnergiesGeV: forecastEnergies, predictionGammaEnergiesGeV: predictionGammaEnergies,
+    gammaEnergiesGeV: gammaEnergies } = planEnergies(rp);
   const { templates, notes: tNotes } = await loadRunTemplates({
     files: rp.templateFiles, specs: rp.buildSpecs, shipped: rp.shipped, buildNside: plan.templates.buildNside,
     absorptionNside: plan.methods.absorptionNside, absorption, gammaEnergiesGeV: gammaEnergies, frame: plan.templates.frame, planFile: rp.file,
@@ -110,16 +81,21 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
     isWholeSky: (n: string) => isWholeSky(rp.regions, n) };
   const factorTemplates = templates.map((t) => ({ name: t.name, map: t.map, weight: weights?.[t.name] }));
 
-  const survivalIn = (region: string, exposureWeighted: boolean, energies: number[]): SurvivalTable | null => {
+  const survivalIn = async (region: string, exposureWeighted: boolean, energies: number[]): Promise<SurvivalTable | null> => {
     if (!absorption || energies.length === 0) return null;
     const byTemplate: Record<string, number[]> = {};
     for (const t of templates) {
-      const a = t.absorbed!;
-      const frame = a.tAbs.frame === 'equatorial' ? 'equatorial' : 'galactic';
-      const w = evaluate(region, { nside: a.tAbs.nside, frame, mode: plan.coverage });
+      const inRegion = (nside: number, frame: 'galactic' | 'equatorial') => evaluate(region, { nside, frame, mode: plan.coverage });
+      const perPlane = t.survivalFile ? await streamRegionSurvival(t.survivalFile, t.map, inRegion, exposureWeighted, plan.templates.frame) : null;
       byTemplate[t.name] = energies.map((e) => {
-        const k = nearestPlane(a.tAbs.energiesGeV, e);
-        const p = regionSurvival(a.tAbs.planes[k], a.survival.planes[k], w, exposureWeighted);
+        let p: number;
+        if (perPlane) p = perPlane.survival[nearestPlane(perPlane.energiesGeV, e)];
+        else {
+          const a = t.absorbed!;
+          const frame = a.tAbs.frame === 'equatorial' ? 'equatorial' : 'galactic';
+          const k = nearestPlane(a.tAbs.energiesGeV, e);
+          p = regionSurvival(a.tAbs.planes[k], a.survival.planes[k], inRegion(a.tAbs.nside, frame), exposureWeighted);
+        }
         if (!(p > 0 && p <= 1 + 1e-12)) throw new ComputeError(`template '${t.name}': mean survival in region '${region}' at ${e} GeV is ${p}; expected a probability`);
         return Math.min(1, p);
       });
@@ -133,9 +109,8 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   const mc = { samples: plan.monteCarlo.samples, seed: plan.monteCarlo.seed };
   const conv = { methods: plan.methods.conversion, channel: plan.methods.channel, flavourRatio: plan.methods.flavourRatio as [number, number, number] };
   if (points && plan.gamma) {
-    factors = computeFactors({ ...regionsBase, templates: factorTemplates, measured: plan.gamma.region,
-      targets: uniqueNames([plan.neutrino.region, ...plan.targets]), exposureWeighted: plan.gamma.exposureWeighted });
-    survival = survivalIn(plan.gamma.region, plan.gamma.exposureWeighted, predictionGammaEnergies);
+    factors = computeFactors({ ...regionsBase, templates: factorTemplates, ...factorTableSelection(rp, true) });
+    survival = await survivalIn(plan.gamma.region, plan.gamma.exposureWeighted, predictionGammaEnergies);
     const ft = factorTables(templates, factors, plan.neutrino.region, survival, weights);
     notes.push(...ft.notes);
     factorsAtE0 = factorsAtEnergy(ft.factors, 2 * e0GeV);
@@ -150,9 +125,8 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
   if (rp.neutrinoTemplateFile && !(points && plan.gamma)) notes.push('neutrino.template is used by the comparison of gamma-ray points only; this run has none, so it was not used');
   let forecastFactors: FactorResult | null = null, forecastSurvival: SurvivalTable | null = null, forecast: ReverseResult | null = null, fPer = false;
   if (plan.forecast) {
-    forecastFactors = computeFactors({ ...regionsBase, templates: factorTemplates, measured: plan.forecast.footprint,
-      targets: [plan.neutrino.region], exposureWeighted: plan.forecast.exposureWeighted });
-    forecastSurvival = survivalIn(plan.forecast.footprint, plan.forecast.exposureWeighted, uniqueSorted(forecastEnergies));
+    forecastFactors = computeFactors({ ...regionsBase, templates: factorTemplates, ...factorTableSelection(rp, false) });
+    forecastSurvival = await survivalIn(plan.forecast.footprint, plan.forecast.exposureWeighted, uniqueSorted(forecastEnergies));
     const ft = factorTables(templates, forecastFactors, plan.neutrino.region, forecastSurvival, weights);
     forecast = expectedGamma({ measurement: m, ...conv, ...mc, factors: ft.factors, energiesGammaGeV: uniqueSorted(forecastEnergies) });
     fPer = ft.factors.some((f) => f.kIByEnergy !== undefined || f.survivalByEnergy !== undefined);
@@ -169,8 +143,4 @@ export async function computePlan(rp: ResolvedPlan, cache: ArtefactCache): Promi
       ((perEnergy || fPer) ? 'the prediction and the proton fit use, at each gamma-ray energy, the survival at that energy.' : 'the survival did not change between the energies used.');
   return { templates, points, e0GeV, energiesNuGeV, factors, prediction, perEnergy, reference, pointsComparison, survival, factorsAtE0,
     forecastFactors, forecastSurvival, forecast, forecastPerEnergy: fPer, populations, projection, absorptionStatement, notes };
-}
-
-function uniqueNames(xs: string[]): string[] {
-  return [...new Set(xs)];
 }

@@ -9,7 +9,6 @@
 import { existsSync } from 'node:fs';
 import { InputError } from '../core/errors.js';
 import { sha256File } from '../io/hash.js';
-import { readSkyMap } from '../io/mapFile.js';
 import { createSkyMap } from '../maps/create.js';
 import type { SkyMap } from '../maps/skyMap.js';
 import { listTemplateFiles, readTemplateFiles } from '../scaling/templateFiles.js';
@@ -24,10 +23,14 @@ import type { ArtefactCache } from './cache.js';
 export interface RunTemplate {
   name: string;
   map: SkyMap;
-  /** Absorbed template (emission x survival) and survival map on one grid, with energies; null without absorption. */
+  /** Absorbed template (emission x survival) and survival map on one grid, with energies; null without absorption or with `survivalFile`. */
   absorbed: { tAbs: SkyMap; survival: SkyMap } | null;
+  /** With absorption, a template file's survival map beside it: streamed over each region when needed (survivalStream.ts), never held. */
+  survivalFile?: string;
   /** Where it came from: a file, a spec file, or 'shipped'. */
   origin: { kind: 'file' | 'spec' | 'shipped'; path: string; sha256: string };
+  /** Its source's place among the run's template sources (files, then specs, then shipped; from 0) and its place within that source (map column). */
+  source?: { index: number; ordinal: number };
 }
 
 function mapToEntry(m: SkyMap) {
@@ -79,45 +82,50 @@ function intrinsic(built: BuiltTemplate): SkyMap {
 export async function loadRunTemplates(opts: {
   files: string[]; specs: string[]; shipped: boolean; buildNside: number; absorptionNside: number;
   absorption: boolean; gammaEnergiesGeV: number[]; frame?: 'galactic' | 'equatorial'; planFile?: string;
+  /** Loads only the sources for which this is true (by index, see {@link RunTemplate.source}); default all. */
+  select?: (source: number) => boolean;
 }, cache: ArtefactCache): Promise<{ templates: RunTemplate[]; notes: string[] }> {
   const out: RunTemplate[] = [], notes: string[] = [];
   const energies = [...opts.gammaEnergiesGeV];
+  const select = opts.select ?? (() => true);
+  const fileList = opts.files.length ? templateFileList(opts.files) : [];
   if (opts.files.length) {
-    for (const t of readTemplateFiles(templateFileList(opts.files), { frame: opts.frame })) {
-      let absorbed: RunTemplate['absorbed'] = null;
+    const ordinals = new Map<string, number>();
+    for (const t of readTemplateFiles(fileList.filter((_, i) => select(i)), { frame: opts.frame })) {
+      const ordinal = ordinals.get(t.file) ?? 0;
+      ordinals.set(t.file, ordinal + 1);
+      let survivalFile: string | undefined;
       if (opts.absorption) {
         const sp = survivalPathFor(t.file);
         if (!existsSync(sp)) {
           throw new InputError(`template file ${t.file} has no survival map beside it (${sp})`, { file: opts.planFile, keyPath: 'templates.files' },
             'build it with absorption (skyspan build --absorption), name its spec under templates.build, or set methods.absorption: none');
         }
-        const survival = readSkyMap(sp, { frame: opts.frame });
-        if (!survival.energiesGeV) throw new InputError('survival map states no energies', { file: sp });
-        if (survival.nside !== t.map.nside || survival.planes.length !== survival.energiesGeV.length) {
-          throw new InputError(`survival map is at Nside ${survival.nside}, the template at ${t.map.nside}`, { file: sp });
-        }
-        const tAbs = { ...survival, planes: survival.planes.map((s, e) => Float64Array.from(s, (v, i) => v * t.map.planes[Math.min(e, t.map.planes.length - 1)][i])) };
-        absorbed = { tAbs, survival };
+        survivalFile = sp;
         notes.push(`template '${t.name}': survival from ${sp}`);
       }
-      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'file', path: t.file, sha256: t.sha256 } });
+      out.push({ name: t.name, map: t.map, absorbed: null, ...(survivalFile ? { survivalFile } : {}), origin: { kind: 'file', path: t.file, sha256: t.sha256 },
+        source: { index: fileList.indexOf(t.file), ordinal } });
     }
   }
-  for (const path of opts.specs) {
+  for (const [j, path] of opts.specs.entries()) {
+    if (!select(fileList.length + j)) continue;
     const spec = readTemplateSpec(path);
     const built = await cachedBuild(spec, { nside: opts.buildNside, energiesGeV: opts.absorption ? energies : spec.energiesGeV, absorption: opts.absorption }, cache);
     const map = opts.absorption ? intrinsic(built) : built.map;
     out.push({ name: spec.name, map, absorbed: opts.absorption ? { tAbs: built.map, survival: built.survival! } : null,
-      origin: { kind: 'spec', path, sha256: sha256File(path) } });
+      origin: { kind: 'spec', path, sha256: sha256File(path) }, source: { index: fileList.length + j, ordinal: 0 } });
   }
   if (opts.shipped) {
-    for (const t of loadShippedEnsemble()) {
+    for (const [j, t] of loadShippedEnsemble().entries()) {
+      const index = fileList.length + opts.specs.length + j;
+      if (!select(index)) continue;
       let absorbed: RunTemplate['absorbed'] = null;
       if (opts.absorption) {
         const b = await cachedBuild(t.spec, { nside: opts.absorptionNside, energiesGeV: energies, absorption: true }, cache);
         absorbed = { tAbs: b.map, survival: b.survival! };
       }
-      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'shipped', path: t.file, sha256: sha256File(t.file) } });
+      out.push({ name: t.name, map: t.map, absorbed, origin: { kind: 'shipped', path: t.file, sha256: sha256File(t.file) }, source: { index, ordinal: 0 } });
     }
     if (opts.absorption) notes.push(`shipped templates: survival maps built from their specs at Nside ${opts.absorptionNside} with CMB absorption at ${energies.map((e) => `${(e / 1e3).toPrecision(3)} TeV`).join(', ')}`);
   }

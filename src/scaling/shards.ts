@@ -88,6 +88,8 @@ export function mergePartials(parts: { file: string; data: unknown }[], shardHas
     }
     if (!same(p.otherInputs.find((i) => i.role === 'regions')?.sha256, p0.otherInputs.find((i) => i.role === 'regions')?.sha256) ||
       !same(p.settings.regionSpec, p0.settings.regionSpec)) throw differ('the region file');
+    const planSha = (x: PartialFactors) => x.otherInputs.find((i) => i.role === 'plan')?.sha256;
+    if (planSha(p) !== planSha(p0)) throw differ('the plan file (skyspan run --shard)');
     if (!same(p.otherInputs.map((i) => i.sha256), p0.otherInputs.map((i) => i.sha256))) throw differ('the region data (catalogues, exposure maps)');
     if (p.settings.measured !== p0.settings.measured || !same(p.settings.targets, p0.settings.targets)) throw differ('the measured or target regions');
     if (p.settings.mode !== p0.settings.mode) throw differ(`the mode (${p.settings.mode})`);
