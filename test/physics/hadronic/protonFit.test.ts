@@ -47,7 +47,8 @@ describe('convertSpectrum', () => {
     expect(r.method).toBe('kpiRule');
     // rule: all-flavour I_nu(E_gamma/2) = 3 K_pi I_gamma(E_gamma) = 6 I_gamma (Ahlers & Halzen 2018; kpiRule.ts)
     for (let i = 0; i < E.length; i++) expect(r.value[i] / pts.value[i]).toBeCloseTo(6, 12);
-    // KAB for an E^-2 proton spectrum: flavour-averaged E^2 ratio 0.354..0.373 vs 0.5 (emissivity.test.ts), so
+    // KAB for an E^-2 proton spectrum: flavour-averaged E^2 ratio 0.354..0.373 (scripts/kab_reference.py through
+    // emissivity.test.ts, rounded) vs the rule's 0.5, so
     // kab/rule = 0.71..0.75 for E_gamma 1..100 TeV
     for (let i = 0; i < 5; i++) {
       expect(k.methodRatio[i]).toBeGreaterThan(0.70);
