@@ -71,7 +71,8 @@ describe('convertSpectrum', () => {
 });
 
 describe('upper limits as one-sided constraints', () => {
-  // z_c = Phi^-1(c): 1.6448536 at 95 %, 1.2815516 at 90 % (scipy.stats.norm.ppf, computed).
+  // z_c = Phi^-1(c): 1.6448536 at 95 %, 1.2815516 at 90 % (scipy.stats.norm.ppf; printed by scripts/compare_reference.py,
+  // "constants", checked in test/compare/normal.test.ts).
   it('a model at the limit adds z_c^2 to chi^2; the level comes from ulConfidence (default 0.95)', () => {
     const pts = { energyGeV: Float64Array.of(1e3, 1e4), value: Float64Array.of(1, 2), errLow: Float64Array.of(0.1, 0), errHigh: Float64Array.of(0.1, 0),
       upperLimit: Uint8Array.of(0, 1) };
