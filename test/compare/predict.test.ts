@@ -76,7 +76,10 @@ describe('neutrino prediction', () => {
     const kab = p.methods[0].atE0, kpi = p.methods[1].atE0;
     expect(kab / kpi).toBeGreaterThan(0.6);
     expect(kab / kpi).toBeLessThan(0.95);
-    expect(component(p, 'method')).toBeDefined();
+    // the method component varies the method alone (equal weight): its 2.5 and 97.5 % points are the two methods
+    const m = component(p, 'method')!.atE0;
+    expect(Math.abs(m.p2_5 / kab - 1)).toBeLessThan(1e-9);
+    expect(Math.abs(m.p97_5 / kpi - 1)).toBeLessThan(1e-9);
   });
 
   it('the same seed reproduces the prediction exactly', () => {
