@@ -12,7 +12,7 @@ import { rotationMatrix, rotateThetaPhi, convertLonLat, HIPPARCOS_ICRS_TO_GALACT
 import { degToRad, radToDeg } from '../../src/sphere/angles.js';
 import { angularDistance } from '../../src/core/math.js';
 import { InputError } from '../../src/core/errors.js';
-import { requirePython, runPython } from '../helpers/python.js';
+import { requirePython, runPython, skipWithoutPython } from '../helpers/python.js';
 
 const DEG = Math.PI / 180;
 
@@ -78,8 +78,9 @@ describe('round trips and the bulk rotation', () => {
 // definition tied to ICRS. The two differ by up to 7e-6 deg (1.2e-7 rad); we
 // allow 1e-5 deg, the precision to which the matrix reproduces the published
 // pole and centre.
-describe.skipIf(!requirePython())('agreement with astropy 5.2 (scripts/astropy_frames.py)', () => {
-  it('converts 205 directions both ways within 1e-5 deg', () => {
+describe('agreement with astropy 5.2 (scripts/astropy_frames.py)', () => {
+  it.skipIf(skipWithoutPython)('converts 205 directions both ways within 1e-5 deg', () => {
+    requirePython(); // under CI=true a missing reference fails here
     const r = JSON.parse(runPython('scripts/astropy_frames.py'));
     let worst = 0;
     for (let i = 0; i < r.lonDeg.length; i++) {
