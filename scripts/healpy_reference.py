@@ -81,6 +81,9 @@ out["spot"] = {
     "ang2pix_4_equator_phi0": [int(hp.ang2pix(4, np.pi / 2, 0.0)), int(hp.ang2pix(4, np.pi / 2, 0.0, nest=True))],
     "pixarea_1024": float(hp.nside2pixarea(1024)),
     "resol_1024_arcmin": float(hp.nside2resol(1024, arcmin=True)),
+    "interp_4_001_03": [[int(v) for v in hp.get_interp_weights(4, 0.01, 0.3)[0]],
+                        [float(v) for v in hp.get_interp_weights(4, 0.01, 0.3)[1]]],
+    "unseen": float(hp.UNSEEN),
 }
 
 json.dump(out, sys.stdout)

@@ -61,6 +61,7 @@ describe('healpy 1.16 spot values (printed by scripts/healpy_reference.py, "spot
     expect(s.ang2pix_4_equator_phi0).toEqual([72, 76]);
     expect(Math.abs(s.pixarea_1024 / 9.98685e-7 - 1)).toBeLessThan(1e-6);
     expect(Math.abs(s.resol_1024_arcmin - 3.43549)).toBeLessThan(5e-6);
+    expect(s.unseen).toBe(-1.6375e30); // the sentinel written out in test/maps/blank.test.ts
   });
   it('pix2ang(4, 0) = (0.2044802, pi/4)', () => {
     // by hand (Gorski et al. 2005, ApJ 622, 759, eqs. 4-5, north polar cap, ring i = 1, j = 1):
