@@ -9,6 +9,10 @@ Prints one JSON object:
                         Science 29, 106, eq. 1) with scipy.integrate.quad and solving
                         CDF(x) = p with scipy.optimize.brentq: independent of the
                         closed form used in src/compare/splitNormal.ts.
+  constants             the numbers written out in test/compare/*.test.ts, so each one is a
+                        printed output of this script: twoSidedP (2 norm.sf(s), s = 1, 2, 3, 5),
+                        ulOneSidedP90 (norm.sf(2 norm.ppf(0.9))), z90 and z95 (norm.ppf),
+                        chi2ppf ([q, k, chi2.ppf(q, k)]), sigmaTwoSided21026 (norm.isf(chi2.ppf(0.95, 12) / 1000 / 2)).
 Run: /usr/bin/python3 scripts/compare_reference.py
 """
 import json
@@ -44,4 +48,11 @@ print(json.dumps({
     'chi2sf': [[x, k, float(stats.chi2.sf(x, k))] for x, k in chi],
     'splitNormal': {'mode': mode, 'sigmaLow': slo, 'sigmaHigh': shi,
                     'quantiles': [[p, q] for p, q in zip(qp, qs)]},
+    'constants': {
+        'twoSidedP': [[sg, float(2 * stats.norm.sf(sg))] for sg in (1.0, 2.0, 3.0, 5.0)],
+        'ulOneSidedP90': float(stats.norm.sf(2 * stats.norm.ppf(0.9))),
+        'z90': float(stats.norm.ppf(0.9)), 'z95': float(stats.norm.ppf(0.95)),
+        'chi2ppf': [[q, k, float(stats.chi2.ppf(q, k))] for q, k in ((0.95, 12), (0.999, 9))],
+        'sigmaTwoSided21026': float(stats.norm.isf(stats.chi2.ppf(0.95, 12) / 1000 / 2)),
+    },
 }))

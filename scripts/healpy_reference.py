@@ -75,4 +75,15 @@ smooth = 0.6 * np.sin(th) * np.cos(ph) - 0.3 * np.sin(th) * np.sin(ph) + 0.5 * z
 rot = hp.Rotator(coord=["G", "C"])
 out["rotate"] = {"nside": nside_r, "input": smooth.tolist(), "output": rot.rotate_map_pixel(smooth).tolist()}
 
+# Spot values written out in test/sphere/healpixGeometry.test.ts and reference.test.ts.
+out["spot"] = {
+    "pix2ang_4_0": [float(v) for v in hp.pix2ang(4, 0)],
+    "ang2pix_4_equator_phi0": [int(hp.ang2pix(4, np.pi / 2, 0.0)), int(hp.ang2pix(4, np.pi / 2, 0.0, nest=True))],
+    "pixarea_1024": float(hp.nside2pixarea(1024)),
+    "resol_1024_arcmin": float(hp.nside2resol(1024, arcmin=True)),
+    "interp_4_001_03": [[int(v) for v in hp.get_interp_weights(4, 0.01, 0.3)[0]],
+                        [float(v) for v in hp.get_interp_weights(4, 0.01, 0.3)[1]]],
+    "unseen": float(hp.UNSEEN),
+}
+
 json.dump(out, sys.stdout)

@@ -10,6 +10,11 @@ one copy shows up as a mismatch.
 Input (stdin, JSON): [{"secondary": "gamma"|"nuMuFromPion"|"electronType", "E": GeV, "index": Gamma}, ...]
 for a proton spectrum E_p^-Gamma (no normalisation, no factor c).
 Output: JSON list of integral sigma_inel[mb](E_p) E_p^-Gamma F(E/E_p, E_p) dE_p/E_p over x in [1e-3, 1].
+
+Other request kinds in the same list (for test/physics/hadronic/kab2006.test.ts):
+  {"secondary": .., "x": x, "Ep": GeV}        -> F(x, E_p), the function itself
+  {"fraction": .., "Ep": GeV}                 -> int_{1e-3}^{x_max} x F(x, E_p) dx, energy fraction
+  {"sigma": GeV}                              -> sigma_inel in mb (eq. 79)
 """
 import json
 import sys
@@ -61,9 +66,25 @@ def emissivity(sec, E, G):
     return quad(g, np.log(1e-3), hi, epsabs=0, epsrel=1e-11, limit=400)[0]
 
 
+def energy_fraction(sec, ep):
+    F = FUNCS[sec]
+    hi = 0.427 if sec == 'nuMuFromPion' else 1.0
+    return quad(lambda x: x * F(x, ep), 1e-3, hi, epsabs=0, epsrel=1e-11, limit=400)[0]
+
+
+def one(r):
+    if 'sigma' in r:
+        return sigma_mb(float(r['sigma']))
+    if 'fraction' in r:
+        return energy_fraction(r['fraction'], float(r['Ep']))
+    if 'x' in r:
+        return float(FUNCS[r['secondary']](float(r['x']), float(r['Ep'])))
+    return emissivity(r['secondary'], float(r['E']), float(r['index']))
+
+
 def main():
     req = json.loads(sys.stdin.read())
-    print(json.dumps([emissivity(r['secondary'], float(r['E']), float(r['index'])) for r in req]))
+    print(json.dumps([one(r) for r in req]))
 
 
 if __name__ == '__main__':

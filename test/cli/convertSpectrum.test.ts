@@ -28,8 +28,8 @@ describe('skyspan convert-spectrum', () => {
     expect(doc.columns.slice(0, 2)).toEqual(['energy', 'nu_all']);
     expect(doc.rows[0][0]).toBeCloseTo(0.5, 10);
     expect(doc.rows[0][1] / 1e-12).toBeCloseTo(6, 4);
-    // KAB / rule for E^-2 to E^-2.7 spectra: 0.71 to 0.81 (computed with scipy from the KAB 2006 forms, eqs. 58-69 and 79;
-    // see test/physics/hadronic/emissivity.test.ts); the window is wide because the CLI goes through the proton fit.
+    // KAB / rule for E^-2 to E^-2.7 spectra: 0.71 to 0.81 (scipy quad of the KAB 2006 forms, eqs. 58-69 and 79, in
+    // scripts/kab_reference.py; compared in test/physics/hadronic/emissivity.test.ts); the window is wide because the CLI goes through the proton fit.
     const iKab = doc.columns.indexOf('kab_over_kpi');
     expect(doc.rows[2][iKab]).toBeGreaterThan(0.6);
     expect(doc.rows[2][iKab]).toBeLessThan(1);

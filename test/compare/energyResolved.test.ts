@@ -25,7 +25,7 @@ const points = (relErr: number, ulLast = false): SpectrumPoints => {
 const P = E.map((e) => survivalProbability(e, D_KPC));
 
 describe('energy-dependent survival', () => {
-  it('the survival used at 1 PeV and 2.2 PeV is exp(-d / lambda) with the table\'s lambda (8.946, 7.067 kpc; REFERENCES.md, computed), 1 %', () => {
+  it('the survival used at 1 PeV and 2.2 PeV is exp(-d / lambda) with the table\'s lambda (8.946, 7.067 kpc: the lambda_kpc output of scripts/attenuation_reference.py, rounded; checked against it in test/physics/absorption), 1 %', () => {
     expect(rel(-Math.log(P[3]), D_KPC / 8.946)).toBeLessThan(0.01);
     expect(rel(-Math.log(P[4]), D_KPC / 7.067)).toBeLessThan(0.01);
   });

@@ -16,9 +16,26 @@ describe('normal distribution and chi-square against scipy (scripts/compare_refe
     for (const [p, v] of ref.ndtri) expect(Math.abs(normalQuantile(p) - v)).toBeLessThan(1e-11 * Math.max(1, Math.abs(v)));
     for (const [x, k, v] of ref.chi2sf) expect(rel(chiSquareSurvival(x, k), v)).toBeLessThan(1e-10);
   });
+  it.skipIf(skipWithoutPython)('the numbers written out in the compare and physics tests are printed by scripts/compare_reference.py ("constants")', () => {
+    requirePython(); // under CI=true a missing reference fails here
+    const c = JSON.parse(runPython('scripts/compare_reference.py')).constants;
+    // here (sigma conversions), rounded to 7 decimals: within half a unit of the 7th decimal
+    const written: Record<number, number> = { 1: 0.3173105, 2: 0.0455003, 3: 0.0026998, 5: 5.733e-7 };
+    for (const [s, p] of c.twoSidedP) expect(Math.abs(written[s] - p)).toBeLessThanOrEqual(5e-8);
+    expect(rel(written[5], c.twoSidedP[3][1])).toBeLessThan(1e-4); // 5 sigma: 4 significant digits
+    // profile.test.ts (upper-limit p at twice a 90 % limit; chi2_12(0.95); its two-sided sigma)
+    expect(c.ulOneSidedP90).toBe(0.005187061403669972);
+    expect(c.z90).toBe(1.2815515655446004);
+    expect(c.z95).toBe(1.6448536269514722); // also test/physics/hadronic/protonFit.test.ts
+    expect(c.chi2ppf[0]).toEqual([0.95, 12, 21.02606981748307]);
+    expect(c.sigmaTwoSided21026).toBe(2.3075160269237824);
+    // random.test.ts: the 0.1 % point of chi2 with 9 dof, written as 27.9 (rounded up)
+    expect(c.chi2ppf[1][2]).toBeGreaterThan(27.87);
+    expect(c.chi2ppf[1][2]).toBeLessThan(27.9);
+  });
 });
 
-describe('sigma conversions (common knowledge)', () => {
+describe('sigma conversions (values printed by scripts/compare_reference.py, "constants", checked above)', () => {
   it('1, 2, 3, 5 sigma two-sided probabilities', () => {
     expect(twoSidedPFromSigma(1)).toBeCloseTo(0.3173105, 7);
     expect(twoSidedPFromSigma(3)).toBeCloseTo(0.0026998, 7);

@@ -2,8 +2,9 @@
  * Neutrino measurements as likelihoods (compare/profile.ts, tension.ts). References:
  * the Gaussian tension |P - mu| / sigma and P(chi^2_1 >= q) = 2 (1 - Phi(sqrt q)) (Wilks 1938,
  * Ann. Math. Stat. 9, 60; common knowledge); one-sided p of an upper limit at 90 %:
- * 1 - Phi(2 z_0.9) = 0.005187061 (scipy.stats.norm.sf(2 * norm.ppf(0.9)), computed);
- * binomial Monte Carlo bounds: chi2.ppf(0.95, 12) = 21.02607 (scipy, computed).
+ * 1 - Phi(2 z_0.9) = 0.005187061 (scipy.stats.norm.sf(2 * norm.ppf(0.9)));
+ * binomial Monte Carlo bounds: chi2.ppf(0.95, 12) = 21.02607 and its two-sided sigma 2.30752 (scipy).
+ * Each number is printed by scripts/compare_reference.py ("constants"); normal.test.ts checks that.
  */
 import { describe, expect, it } from 'vitest';
 import { parseMeasurement } from '../../src/compare/measurement.js';

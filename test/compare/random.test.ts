@@ -52,7 +52,8 @@ describe('xoshiro128** and SplitMix64', () => {
   });
 
   it('integer(n) is uniform over 0..n-1', () => {
-    // Chi-square of 10 equal bins, 1e5 draws: below 27.9 (the 0.1 % point of chi2 with 9 dof, scipy).
+    // Chi-square of 10 equal bins, 1e5 draws: below 27.9 (the 0.1 % point of chi2 with 9 dof, 27.877, rounded up; printed by
+    // scripts/compare_reference.py, "constants", checked in normal.test.ts).
     const r = new Random(3);
     const counts = new Array(10).fill(0);
     for (let i = 0; i < 100000; i++) counts[r.integer(10)]++;

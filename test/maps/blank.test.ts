@@ -1,6 +1,7 @@
 /**
  * Blank detection (src/maps/blank.ts) and plane statistics (src/maps/stats.ts).
- * The sentinel -1.6375e30 is healpy's UNSEEN (computed with Debian python3-healpy);
+ * The sentinel -1.6375e30 is healpy's UNSEEN (healpy.UNSEEN, printed by scripts/healpy_reference.py
+ * "spot" and checked in test/sphere/healpixGeometry.test.ts);
  * the float32 tolerance and NaN handling are common practice, no source.
  */
 import { describe, expect, it } from 'vitest';

@@ -29,11 +29,17 @@ describe.skipIf(!ref)('interpolationWeights against healpy.get_interp_weights', 
 });
 
 describe('documented example', () => {
-  it('interpolationWeights(4, 0.01, 0.3) uses the polar ring 1, 2, 3, 0 (healpy 1.16 gives the same, computed)', () => {
+  it.skipIf(!ref)('the weights written out below are healpy\'s (scripts/healpy_reference.py, "spot")', () => {
+    const [p, w] = ref!.spot.interp_4_001_03;
+    expect(p).toEqual([1, 2, 3, 0]);
+    const hw = [0.23777388, 0.23777388, 0.25288605, 0.27156619];
+    for (let k = 0; k < 4; k++) expect(Math.abs(w[k] - hw[k])).toBeLessThan(5e-9);
+  });
+  it('interpolationWeights(4, 0.01, 0.3) uses the polar ring 1, 2, 3, 0 (healpy 1.16 gives the same, checked above)', () => {
     const pix = new Uint32Array(4), w = new Float64Array(4);
     interpolationWeights(4, 0.01, 0.3, pix, w);
     expect(Array.from(pix)).toEqual([1, 2, 3, 0]);
-    // healpy.get_interp_weights(4, 0.01, 0.3) weights, computed with Debian python3-healpy.
+    // healpy.get_interp_weights(4, 0.01, 0.3) weights, printed by scripts/healpy_reference.py (Debian python3-healpy).
     const hw = [0.23777388, 0.23777388, 0.25288605, 0.27156619];
     for (let k = 0; k < 4; k++) expect(w[k]).toBeCloseTo(hw[k], 7);
   });

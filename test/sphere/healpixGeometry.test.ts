@@ -14,6 +14,8 @@ import { nside2npix, pixelAreaSr, resolutionRad } from '../../src/sphere/nside.j
 import { angleToPixel, pixelToAngle, ringToNestRef } from '../../src/sphere/reference.js';
 import { radToArcmin } from '../../src/sphere/angles.js';
 import { gorskiCentre, ringStart } from './gorskiFormulas.js';
+import { healpyReference } from './healpyFixture.js';
+import { skipWithoutPython } from '../helpers/python.js';
 
 const TWO_PI = 2 * Math.PI;
 const SEED = 20261202;
@@ -51,8 +53,19 @@ describe('pixel centres against Gorski et al. 2005, section 4', () => {
   });
 });
 
-describe('healpy 1.16 spot values (computed with Debian python3-healpy)', () => {
+describe('healpy 1.16 spot values (printed by scripts/healpy_reference.py, "spot"; checked against it below)', () => {
+  it.skipIf(skipWithoutPython)('the numbers written out here and in reference.test.ts are the script\'s output', () => {
+    const s = healpyReference()!.spot; // under CI=true a missing reference fails here
+    expect(Math.abs(s.pix2ang_4_0[0] - 0.2044802)).toBeLessThan(5e-8);
+    expect(Math.abs(s.pix2ang_4_0[1] / (Math.PI / 4) - 1)).toBeLessThan(1e-15);
+    expect(s.ang2pix_4_equator_phi0).toEqual([72, 76]);
+    expect(Math.abs(s.pixarea_1024 / 9.98685e-7 - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(s.resol_1024_arcmin - 3.43549)).toBeLessThan(5e-6);
+    expect(s.unseen).toBe(-1.6375e30); // the sentinel written out in test/maps/blank.test.ts
+  });
   it('pix2ang(4, 0) = (0.2044802, pi/4)', () => {
+    // by hand (Gorski et al. 2005, ApJ 622, 759, eqs. 4-5, north polar cap, ring i = 1, j = 1):
+    // z = 1 - i^2 / (3 Nside^2) = 1 - 1/48, theta = arccos(47/48) = 0.2044802; phi = pi/(2i) (j - 1/2) = pi/4
     const th = new Float64Array(192), ph = new Float64Array(192);
     pixelCentres(4, 'RING', th, ph);
     expect(th[0]).toBeCloseTo(0.2044802, 7);
@@ -66,7 +79,9 @@ describe('healpy 1.16 spot values (computed with Debian python3-healpy)', () => 
     expect(out[0]).toBe(76);
   });
   it('pixel area at Nside 1024 is 9.98685e-7 sr, resolution 3.43549 arcmin', () => {
-    expect(pixelAreaSr(1024) / 9.98685e-7 - 1).toBeLessThan(1e-6);
+    // by hand: 4 pi / (12 * 1024^2) = 12.5663706 / 12582912 = 9.98685e-7 sr (Gorski et al. 2005, equal areas);
+    // resolution sqrt(area) = 9.993423e-4 rad = 3.43549 arcmin
+    expect(Math.abs(pixelAreaSr(1024) / 9.98685e-7 - 1)).toBeLessThan(1e-6);
     expect(Math.abs(radToArcmin(resolutionRad(1024)) - 3.43549)).toBeLessThan(1e-5);
   });
   it('the pixel areas sum to 4 pi (every Nside)', () => {

@@ -12,6 +12,10 @@ export interface HealpyReference {
   interp: Record<string, { pix: number[][]; w: number[][] }>;
   udgrade: Record<string, number[]> & { nside: number };
   rotate: { nside: number; input: number[]; output: number[] };
+  spot: {
+    pix2ang_4_0: number[]; ang2pix_4_equator_phi0: number[]; pixarea_1024: number; resol_1024_arcmin: number;
+    interp_4_001_03: [number[], number[]]; unseen: number;
+  };
 }
 
 let cached: HealpyReference | null | undefined;

@@ -1,6 +1,7 @@
 /**
  * The per-pixel reference wrappers (src/sphere/reference.ts) on healpy 1.16
- * spot values (computed with Debian python3-healpy) and on the
+ * spot values (printed by scripts/healpy_reference.py, "spot", and checked against it in
+ * healpixGeometry.test.ts; theta = arccos(47/48) by hand there) and on the
  * definition of a disc (common practice, no source).
  */
 import { describe, expect, it } from 'vitest';

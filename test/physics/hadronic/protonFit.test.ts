@@ -47,7 +47,8 @@ describe('convertSpectrum', () => {
     expect(r.method).toBe('kpiRule');
     // rule: all-flavour I_nu(E_gamma/2) = 3 K_pi I_gamma(E_gamma) = 6 I_gamma (Ahlers & Halzen 2018; kpiRule.ts)
     for (let i = 0; i < E.length; i++) expect(r.value[i] / pts.value[i]).toBeCloseTo(6, 12);
-    // KAB for an E^-2 proton spectrum: flavour-averaged E^2 ratio 0.354..0.373 vs 0.5 (emissivity.test.ts), so
+    // KAB for an E^-2 proton spectrum: flavour-averaged E^2 ratio 0.354..0.373 (scripts/kab_reference.py through
+    // emissivity.test.ts, rounded) vs the rule's 0.5, so
     // kab/rule = 0.71..0.75 for E_gamma 1..100 TeV
     for (let i = 0; i < 5; i++) {
       expect(k.methodRatio[i]).toBeGreaterThan(0.70);
@@ -70,7 +71,8 @@ describe('convertSpectrum', () => {
 });
 
 describe('upper limits as one-sided constraints', () => {
-  // z_c = Phi^-1(c): 1.6448536 at 95 %, 1.2815516 at 90 % (scipy.stats.norm.ppf, computed).
+  // z_c = Phi^-1(c): 1.6448536 at 95 %, 1.2815516 at 90 % (scipy.stats.norm.ppf; printed by scripts/compare_reference.py,
+  // "constants", checked in test/compare/normal.test.ts).
   it('a model at the limit adds z_c^2 to chi^2; the level comes from ulConfidence (default 0.95)', () => {
     const pts = { energyGeV: Float64Array.of(1e3, 1e4), value: Float64Array.of(1, 2), errLow: Float64Array.of(0.1, 0), errHigh: Float64Array.of(0.1, 0),
       upperLimit: Uint8Array.of(0, 1) };
