@@ -65,7 +65,7 @@ export function projectOnNeutrinoTemplate(a: {
     return { t, f, row };
   });
   const proj = projectionFactors(rows.map(({ t, row }) => ({ name: t.name, map: t.map, plane: row.plane, meanMeasured: row.meanMeasured })), nu, acc, a.e0GeV);
-  const factors = proj.map((p, i) => ({ ...p, kI: rows[i].f.kI! })); // factorsAtEnergy always sets kI
+  const factors = proj.map((p, i) => ({ ...p, plane: p.plane + 1, kI: rows[i].f.kI! })); // planes 1-based as users see them; factorsAtEnergy always sets kI
   const prediction = predictNeutrinos({ ...a.base, gamma: { kind: 'points', points: a.points }, e0GeV: a.e0GeV, energiesNuGeV: [],
     factors: rows.map(({ t }, i) => {
       const { kIByEnergy: _unused, ...f } = a.factorTables.find((x) => x.template === t.name)!;

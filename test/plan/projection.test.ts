@@ -34,6 +34,7 @@ describe('plan: comparison on the neutrino template\'s own terms', () => {
     const p = res.templateProjection;
     const f = p.factors.find((x: { template: string }) => x.template === 'narrow');
     expect(rel(f.q, f.kI)).toBeLessThan(1e-12);
+    expect(f.plane).toBe(1); // planes are 1-based wherever a user sees them (single-plane template)
     const g = p.factors.find((x: { template: string }) => x.template === 'wide');
     expect(rel(g.q, g.kI)).toBeGreaterThan(1e-3); // another shape projects differently
     expect(p.comparison.ratio.median).toBeGreaterThan(0);
