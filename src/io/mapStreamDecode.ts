@@ -8,7 +8,7 @@
  * (Float32Array for float32, uint8 and int16 columns, else Float64Array).
  */
 import { BLANK, type MapArray } from '../maps/skyMap.js';
-import { elementBytes } from './fits/decode.js';
+import { elementBytes, gatherBigEndian } from './fits/decode.js';
 import type { TableColumn, TableLayout } from './fits/bintable.js';
 
 /** One plane of the map: a column and a slot within each pixel's values. */
@@ -76,26 +76,11 @@ export function replaceBad(out: MapArray, n: number, bad: number | undefined): v
   for (let i = 0; i < n; i++) if (out[i] === bad || out[i] === b32) out[i] = BLANK;
 }
 
-/** Gathers stored values of one plane with a DataView (any element type). */
+/** Gathers stored values of one plane (any element type; fits/decode.ts kernel). */
 function gather(block: Uint8Array, rowBytes: number, rows: number, ppr: number, src: PlaneSource, out: MapArray): void {
-  const dv = new DataView(block.buffer, block.byteOffset, block.byteLength);
   const t = src.col.format.element!;
   const size = elementBytes(t);
-  const step = size * src.k;
-  let o = 0;
-  for (let r = 0; r < rows; r++) {
-    let p = r * rowBytes + src.col.offset + src.slot * size;
-    for (let i = 0; i < ppr; i++, p += step, o++) {
-      switch (t) {
-        case 'uint8': out[o] = block[p]; break;
-        case 'int16': out[o] = dv.getInt16(p); break;
-        case 'int32': out[o] = dv.getInt32(p); break;
-        case 'float32': out[o] = dv.getFloat32(p); break;
-        case 'float64': out[o] = dv.getFloat64(p); break;
-        case 'int64': out[o] = Number(dv.getBigInt64(p)); break;
-      }
-    }
-  }
+  gatherBigEndian(block, 0, rows, rowBytes, src.col.offset + src.slot * size, ppr, size * src.k, t, out);
 }
 
 /** Decodes the PIXEL column (one index per row) of `rows` rows into `out` (as numbers). */

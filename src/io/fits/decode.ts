@@ -75,12 +75,23 @@ export function allocate(t: ElementType, count: number): DecodedArray {
 export function decodeStrided(bytes: Uint8Array, start: number, rows: number, rowBytes: number, colOffset: number,
   repeat: number, t: ElementType): DecodedArray {
   const out = allocate(t, rows * repeat);
+  gatherBigEndian(bytes, start, rows, rowBytes, colOffset, repeat, elementBytes(t), t, out);
+  return out;
+}
+
+/**
+ * Kernel: reads `perRow` big-endian elements of type `t` from each of `rows`
+ * rows (`rowBytes` apart, the first at `start + colOffset`, then every
+ * `stepBytes`) into out[0 .. rows*perRow), row-major. The caller has checked
+ * every offset against `bytes`.
+ */
+export function gatherBigEndian(bytes: Uint8Array, start: number, rows: number, rowBytes: number, colOffset: number,
+  perRow: number, stepBytes: number, t: ElementType, out: DecodedArray): void {
   const dv = new DataView(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const size = elementBytes(t);
   let k = 0;
   for (let r = 0; r < rows; r++) {
     let p = start + r * rowBytes + colOffset;
-    for (let j = 0; j < repeat; j++, p += size, k++) {
+    for (let j = 0; j < perRow; j++, p += stepBytes, k++) {
       switch (t) {
         case 'uint8': out[k] = bytes[p]; break;
         case 'int16': out[k] = dv.getInt16(p); break;
@@ -91,7 +102,6 @@ export function decodeStrided(bytes: Uint8Array, start: number, rows: number, ro
       }
     }
   }
-  return out;
 }
 
 /** Writes `values` big-endian as type `t` into `out` at `offset` (contiguous). */
