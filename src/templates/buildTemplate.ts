@@ -3,6 +3,7 @@
  * line-of-sight integration of the tabulated 3D model, on worker threads.
  */
 import { Worker } from 'node:worker_threads';
+import { availableParallelism } from 'node:os';
 import { createRequire } from 'node:module';
 import { pathToFileURL } from 'node:url';
 import { InputError } from '../core/errors.js';
@@ -26,7 +27,7 @@ export interface BuildOptions {
   absorption?: boolean;
   /** Attenuation length in kpc per energy (default: the physics layer's CMB value). */
   attenuationLengthKpc?: AttenuationLengthFn;
-  /** Worker threads (default: 2 when pixels x samples exceed 2e7, else 1; 0 or 1 runs in this thread). */
+  /** Worker threads (default: one per core, at most 4, when the job outweighs starting them, else 1; 0 or 1 runs in this thread). */
   workers?: number;
   /** Sub-pixel factor per axis, a power of two (default: enough to reach Nside 64). */
   oversample?: number;
@@ -57,6 +58,11 @@ function startWorker(workerData: unknown): Worker {
   const code = `import(${JSON.stringify(api)}).then((m) => { m.register(); return import(${JSON.stringify(target)}); })
   .catch((e) => require('node:worker_threads').parentPort.postMessage({ ok: false, message: String(e) }));`;
   return new Worker(code, { eval: true, workerData });
+}
+
+/** Worker threads for a big build: one per core, at most 4. */
+function defaultWorkerCount(): number {
+  return Math.max(1, Math.min(4, availableParallelism()));
 }
 
 async function runWorkers(input: KernelInput, count: number, total: number, onProgress?: (d: number, t: number) => void): Promise<void> {
@@ -108,8 +114,11 @@ export async function buildTemplate(spec: TemplateSpec, opts: BuildOptions): Pro
   });
   const nE = input.nE, npixEff = nside2npix(nsideEff), npix = nside2npix(opts.nside);
   const survivalW = input.survival;
-  // Threads pay off only for big jobs: start them above about 2e7 samples.
-  const workers = opts.workers ?? (npixEff * input.sKpc.length > 2e7 ? 2 : 1);
+  // Threads pay off once the work outweighs starting them: a compiled worker
+  // starts in a few tens of ms (about 2e6 samples of the kernel, half of them
+  // mirrored), one under tsx in about a second (2e7).
+  const samples = (npixEff * input.sKpc.length) / 2;
+  const workers = opts.workers ?? (samples > (import.meta.url.endsWith('.ts') ? 2e7 : 2e6) ? defaultWorkerCount() : 1);
   if (workers <= 1) {
     let done = 0;
     integrateRings(input, 0, 1, opts.onProgress ? (n) => { done += n; if ((done & 0x3fff) < n) opts.onProgress!(done, npixEff); } : undefined);

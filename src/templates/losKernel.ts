@@ -77,8 +77,24 @@ export function losIntegral(k: KernelInput, cosB: number, sinB: number, cosL: nu
 }
 
 /**
+ * Index of the pixel mirrored in longitude (phi -> 2 pi - phi) within a ring
+ * of `len` pixels at phi0 + j dphi: phi0 is 0 or dphi / 2 in the RING scheme
+ * (Gorski et al. 2005, ApJ 622, 759, eqs. 8-9), so the mirror of j is
+ * len - j (mod len) or len - 1 - j.
+ */
+export function mirrorInRing(j: number, len: number, phi0: number, dphi: number): number {
+  const shift = Math.round((2 * phi0) / dphi);
+  return (len - shift - j + len) % len;
+}
+
+/**
  * Integrates rings ringFrom, ringFrom + ringStride, ... (0-based, RING scheme)
  * into k.out (and k.outPlain); calls onRing after each ring (for progress).
+ *
+ * The model is axisymmetric and the observer sits at y = 0, so the line of
+ * sight toward (l, b) meets the same (R, z) as toward (-l, b): each ring is
+ * mirror-symmetric in longitude, and only the pixels with mirror index >= j
+ * are integrated; the others copy their mirror (half the work).
  */
 export function integrateRings(k: KernelInput, ringFrom: number, ringStride: number, onRing?: (pixels: number) => void): void {
   const t = ringTable(k.nside);
@@ -89,9 +105,18 @@ export function integrateRings(k: KernelInput, ringFrom: number, ringStride: num
     const cb = t.sinTheta[r], sb = t.z[r], phi0 = t.phi0[r], dphi = t.dphi[r];
     const first = t.first[r], len = t.length[r];
     for (let j = 0; j < len; j++) {
+      const pix = first + j;
+      const m = mirrorInRing(j, len, phi0, dphi);
+      if (m < j) {
+        const src = first + m;
+        for (let e = 0; e < nE; e++) {
+          out[e * npix + pix] = out[e * npix + src];
+          if (outPlain !== null) outPlain[e * npix + pix] = outPlain[e * npix + src];
+        }
+        continue;
+      }
       const phi = phi0 + j * dphi;
       losIntegral(k, cb, sb, Math.cos(phi), Math.sin(phi), acc, accPlain);
-      const pix = first + j;
       for (let e = 0; e < nE; e++) {
         out[e * npix + pix] = acc[e];
         if (outPlain !== null) outPlain[e * npix + pix] = accPlain[e];

@@ -110,6 +110,23 @@ function gasFunction(spec: TemplateSpec, nR: number, nU: number, dR: number, zAt
 }
 
 /**
+ * Tables kept between builds in one process: the shipped ensemble's templates
+ * share two gas models and four cosmic-ray profiles, and both take longer to
+ * tabulate than the line-of-sight integration itself. Keyed by everything
+ * they depend on; at most `max` per kind, the oldest dropped. Never mutated.
+ */
+const GAS_TABLES = new Map<string, Float64Array>();
+const RADIAL_TABLES = new Map<string, Float64Array>();
+function reused(tables: Map<string, Float64Array>, max: number, key: string, make: () => Float64Array): Float64Array {
+  const hit = tables.get(key);
+  if (hit) return hit;
+  const made = make();
+  tables.set(key, made);
+  if (tables.size > max) tables.delete(tables.keys().next().value!);
+  return made;
+}
+
+/**
  * Tabulates the spec's model for the given energies (null: one plane without
  * spectral factor) on R in [0, rMaxKpc].
  */
@@ -139,7 +156,12 @@ export function buildModelGrid(spec: TemplateSpec, energiesGeV: ArrayLike<number
   } else {
     const cr = spec.cosmicRays!;
     gradient = cr.indexGradientPerKpc; pivot = cr.pivotGeV;
-    const gas = gasFunction(spec, nR, nU, dR, zs_);
+    const gasGrid = reused(GAS_TABLES, 2, JSON.stringify([spec.gas ?? [], rSun, nR, nU, dR, zs]), () => {
+      const gas = gasFunction(spec, nR, nU, dR, zs_);
+      const t = new Float64Array(nR * nU);
+      for (let i = 0; i < nR; i++) for (let j = 0; j < nU; j++) t[i * nU + j] = gas(rs[i], zs_[j], i, j);
+      return t;
+    });
     let crf: (iR: number, z: number, iU: number) => number;
     if (cr.distribution === 'constant') crf = () => 1;
     else if (cr.distribution === 'expression') {
@@ -148,18 +170,22 @@ export function buildModelGrid(spec: TemplateSpec, energiesGeV: ArrayLike<number
       crf = (iR, _z, iU) => table(iR, iU);
     } else {
       const H = cr.haloHeightKpc!;
-      const radial = smoothedRadialProfile(RADIAL_LAWS[cr.distribution as RadialLawName], rSun, H, rs);
+      const radial = reused(RADIAL_TABLES, 8, JSON.stringify([cr.distribution, rSun, H, nR, dR]),
+        () => smoothedRadialProfile(RADIAL_LAWS[cr.distribution as RadialLawName], rSun, H, rs));
       crf = (iR, z) => radial[iR] * haloVertical(cr.verticalProfile, z, H);
     }
-    density = (iR, z, iU) => { const c = crf(iR, z, iU); return c === 0 ? 0 : c * gas(rs[iR], z, iR, iU); };
+    density = (iR, z, iU) => { const c = crf(iR, z, iU); return c === 0 ? 0 : c * gasGrid[iR * nU + iU]; };
   }
   const logE = energiesGeV ? Float64Array.from(energiesGeV, (e) => Math.log(e / pivot)) : new Float64Array(1);
+  // The spectral factor depends on R and E only: one exp per (R, E), not per node.
+  const spectral = new Float64Array(nE);
   for (let i = 0; i < nR; i++) {
     const dg = gradient * (rs[i] - rSun);
+    for (let e = 0; e < nE; e++) spectral[e] = dg === 0 ? 1 : Math.exp(-dg * logE[e]);
     for (let j = 0; j < nU; j++) {
       const d = density(i, zs_[j], j);
       const base = (i * nU + j) * nE;
-      for (let e = 0; e < nE; e++) values[base + e] = d * (dg === 0 ? 1 : Math.exp(-dg * logE[e]));
+      for (let e = 0; e < nE; e++) values[base + e] = d * spectral[e];
     }
   }
   return { nR, nU, nE, dRKpc: dR, zScaleKpc: zs, values };

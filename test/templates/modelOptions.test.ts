@@ -69,3 +69,38 @@ describe('energy axis, user expressions, observer height, source templates', () 
       .toThrow(/^key gas\[0\]\.expression: expression gives -[0-9.e-]+ at R = /);
   });
 });
+
+describe('tables reused between builds', () => {
+  it('a model grid depends only on its own spec, whatever was built before it', async () => {
+    // Gas and cosmic-ray tables are kept between builds (modelGrid.ts); a grid must not pick up another
+    // spec's table. The H2 factor scales the gas linearly (common practice, no source), so with the same
+    // cosmic rays the difference of two H2 factors is proportional to their difference; another halo
+    // height must change the grid; a repeat must be identical.
+    const { buildModelGrid } = await import('../../src/templates/modelGrid.js');
+    const gas = (f: number) => `gas:\n  - {component: hiDickeyLockman}\n  - {component: h2Ferriere2001, factor: ${f}}\n`;
+    const cr = (h: number) => `cosmicRays: {distribution: green2015, haloHeightKpc: ${h}}`;
+    const grid = (y: string) => buildModelGrid(parseTemplateSpec(`name: t\n${y}`), [1e4, 1e6], 20, { dRKpc: 0.1, nU: 129 }).values;
+    const a = grid(gas(2) + cr(4)), b = grid(gas(3) + cr(4)), c = grid(gas(4) + cr(4)), h = grid(gas(2) + cr(6)), again = grid(gas(2) + cr(4));
+    expect(Array.from(again)).toEqual(Array.from(a));
+    let worst = 0, moved = 0;
+    for (let i = 0; i < a.length; i++) {
+      const d1 = b[i] - a[i], d2 = c[i] - b[i];
+      if (Math.abs(d1) > 1e-2 * Math.abs(a[i])) worst = Math.max(worst, Math.abs(d2 / d1 - 1));
+      if (h[i] !== a[i]) moved++;
+    }
+    expect(worst).toBeLessThan(1e-4); // single-precision grid: differences above 1 % of the value lose at most ~1e-5
+    expect(moved).toBeGreaterThan(a.length / 4);
+    // In the mid-plane (u = 0, vertical factor 1) the two halo heights differ only through the smoothed
+    // radial profile, computed here directly.
+    const { smoothedRadialProfile } = await import('../../src/templates/cosmicRays.js');
+    const { RADIAL_LAWS } = await import('../../src/templates/radialLaws.js');
+    const nR = a.length / (129 * 2), rs = Float64Array.from({ length: nR }, (_, i) => i * 0.1);
+    const p4 = smoothedRadialProfile(RADIAL_LAWS.green2015, 8.5, 4, rs), p6 = smoothedRadialProfile(RADIAL_LAWS.green2015, 8.5, 6, rs);
+    let worstRatio = 0;
+    for (let i = 10; i < 150; i += 7) {
+      const node = (i * 129 + 64) * 2;
+      worstRatio = Math.max(worstRatio, Math.abs(a[node] / h[node] / (p4[i] / p6[i]) - 1));
+    }
+    expect(worstRatio).toBeLessThan(1e-6);
+  });
+});
