@@ -1,8 +1,8 @@
 /**
  * Whole-process benchmarks: the installed command (`node bin/skyspan.js`,
- * compiled dist/) timed as a user runs it, start-up included, against the
+ * bundled dist/bin/) timed as a user runs it, start-up included, against the
  * reference's whole process, alternating A B A B (SKYSPAN_BENCH_REPS times
- * each, default 3). Wall and CPU time come from /usr/bin/time, as does the
+ * each, default 5). Wall and CPU time come from /usr/bin/time, as does the
  * peak RSS (the operating system's maximum resident set size). Printed per
  * line: median wall time (min-max), median CPU time, median peak RSS, and the
  * ratio of the median wall times.
@@ -27,7 +27,7 @@ const ROOT = resolve(HERE, '..');
 const BIN = join(ROOT, 'bin/skyspan.js');
 const PY = '/usr/bin/python3';
 const TIME = '/usr/bin/time';
-const REPS = Math.max(3, Number(process.env.SKYSPAN_BENCH_REPS ?? 3));
+const REPS = Math.max(3, Number(process.env.SKYSPAN_BENCH_REPS ?? 5));
 
 /** One process run as measured by /usr/bin/time. */
 interface Run { wallS: number; cpuS: number; rssMB: number; stdout: string }
@@ -116,8 +116,10 @@ const suites: Record<string, (scratch: string) => void> = {
 /** Runs the named whole-process suites (all by default). */
 export async function benchWholeProcess(names: string[] = []): Promise<void> {
   if (!existsSync(TIME)) throw new Error(`${TIME} is needed for the whole-process benchmarks (Debian package time)`);
-  execFileSync(process.execPath, [join(ROOT, 'node_modules/typescript/bin/tsc'), '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'inherit' }); // measure the current sources
-  console.log(`whole process (as users run it): node bin/skyspan.js (compiled dist/), A B alternating, ${REPS} runs each; median (min-max); peak RSS from /usr/bin/time`);
+  // measure the current sources: the build as `npm run build` does it (library, then the command bundle)
+  execFileSync(process.execPath, [join(ROOT, 'node_modules/typescript/bin/tsc'), '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'inherit' });
+  execFileSync(process.execPath, [join(ROOT, 'scripts/bundle-cli.mjs')], { cwd: ROOT, stdio: 'inherit' });
+  console.log(`whole process (as users run it): node bin/skyspan.js (bundled dist/bin/), A B alternating, ${REPS} runs each; median (min-max); peak RSS from /usr/bin/time`);
   const scratch = mkdtempSync(join(tmpdir(), 'skyspan-bench-'));
   try {
     for (const n of names.length ? names : Object.keys(suites)) {

@@ -138,15 +138,19 @@ export function wholeSkySums(plane: MapArray, out: Float64Array): void {
   // the pass goes in blocks through one small kernel, so that the kernel is compiled as an
   // ordinary hot function early on (one long loop in a single call runs slower, measured);
   // the order of the additions is the same as one plain loop
-  const st = new Float64Array(4); // running sum, compensation, blank count, negative count
+  const st = new Float64Array(SKY_ST_LENGTH);
   for (let a = 0; a < n; a += SKY_BLOCK) skyBlock(plane, a, a + SKY_BLOCK < n ? a + SKY_BLOCK : n, st);
   finishSkySums(st, n, out);
 }
 
 /** Writes the {@link S} slots of `out` from the state of {@link skyBlock} after a pass over all `n` pixels. */
 export function finishSkySums(st: Float64Array, n: number, out: Float64Array): void {
-  const blank = st[2], neg = st[3];
-  const valid = n - blank, sum = st[0] + st[1];
+  const blank = st[2], neg = st[3], part = st[4];
+  let s = st[0], c = st[1];
+  const t = s + part; // the last partial sum
+  if (Math.abs(s) >= Math.abs(part)) c += (s - t) + part; else c += (part - t) + s;
+  s = t;
+  const valid = n - blank, sum = s + c;
   out[S.WF] = valid;
   out[S.WFT] = sum;
   out[S.F] = valid;
@@ -161,19 +165,37 @@ export function finishSkySums(st: Float64Array, n: number, out: Float64Array): v
 /** Pixels per call of {@link skyBlock}. */
 const SKY_BLOCK = 16384;
 
+/** Length of the state of {@link skyBlock}. */
+export const SKY_ST_LENGTH = 6;
+/** Valid values added plainly (in double precision) before their partial sum enters the compensated sum. */
+const SKY_PART = 256;
+
 /**
- * Neumaier sum of the valid values of plane[a..b), continuing the state in st
- * (running sum, compensation, blank count, negative count; see wholeSkySums).
+ * Sum of the valid values of plane[a..b), continuing the state in st
+ * (running sum, compensation, blank count, negative count, partial sum,
+ * values in the partial sum). Valid values go into a plain double partial
+ * sum, and every 256 of them the partial enters the Neumaier sum: one
+ * compensated update per 256 values instead of per value, with the partial's
+ * rounding at most 256 x 2^-53 of its values' magnitudes (Higham 2002,
+ * Accuracy and Stability of Numerical Algorithms, eq. 4.4; from memory). The
+ * partials are counted over valid values in pixel order, so the result does
+ * not depend on how the pass is cut into blocks.
  */
 export function skyBlock(plane: MapArray, a: number, b: number, st: Float64Array): void {
-  let s = st[0], c = st[1], blank = st[2], neg = st[3];
+  let s = st[0], c = st[1], blank = st[2], neg = st[3], part = st[4], k = st[5];
   for (let p = a; p < b; p++) {
     const v = plane[p];
-    if (!(v - v === 0) || (v >= BLANK_LO && v <= BLANK_HI)) { blank++; continue; }
-    if (v < 0) neg++;
-    const t = s + v;
-    if (Math.abs(s) >= Math.abs(v)) c += (s - t) + v; else c += (v - t) + s;
-    s = t;
+    // the common case first: finite and >= 0 (never blank, never negative)
+    if (!(v >= 0 && v < Infinity)) {
+      if (!(v - v === 0) || (v >= BLANK_LO && v <= BLANK_HI)) { blank++; continue; }
+      neg++;
+    }
+    part += v;
+    if (++k === SKY_PART) {
+      const t = s + part;
+      if (Math.abs(s) >= Math.abs(part)) c += (s - t) + part; else c += (part - t) + s;
+      s = t; part = 0; k = 0;
+    }
   }
-  st[0] = s; st[1] = c; st[2] = blank; st[3] = neg;
+  st[0] = s; st[1] = c; st[2] = blank; st[3] = neg; st[4] = part; st[5] = k;
 }

@@ -12,7 +12,7 @@
 import type { MapArray } from '../maps/skyMap.js';
 import { nestToRing, ringToNest } from '../sphere/pixelIndex.js';
 import type { RegionPixels } from './regionPixels.js';
-import { finishRegionSums, finishSkySums, skyBlock, ST_LENGTH, sumBlock, SUMS_LENGTH } from './regionSums.js';
+import { finishRegionSums, finishSkySums, skyBlock, SKY_ST_LENGTH, ST_LENGTH, sumBlock, SUMS_LENGTH } from './regionSums.js';
 
 /** `r` with its pixels listed in NESTED order and NESTED indices (unchanged when full). */
 export function inNestedOrder(r: RegionPixels): RegionPixels {
@@ -46,7 +46,7 @@ export class StreamedPlaneSums {
   private readonly cursor: Int32Array;
 
   constructor(private readonly a: RegionPixels, private readonly bs: RegionPixels[], planes: number, private readonly npix: number) {
-    this.sky = Array.from({ length: planes }, () => new Float64Array(4));
+    this.sky = Array.from({ length: planes }, () => new Float64Array(SKY_ST_LENGTH));
     this.sa = Array.from({ length: planes }, () => new Float64Array(ST_LENGTH));
     this.sbs = bs.map(() => Array.from({ length: planes }, () => new Float64Array(ST_LENGTH)));
     this.cursor = new Int32Array(1 + bs.length);

@@ -6,27 +6,39 @@
  * is the shell's convention (POSIX, from memory). Which packages a command
  * loads is seen through a module resolve hook (Node's module.register API).
  */
-import { existsSync, readdirSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { COMMANDS } from '../../src/cli/commands/index.js';
 import { writeMapFile } from '../../src/io/mapFile.js';
 import { VERSION } from '../../src/version.js';
-import { ensureBuilt, runBin } from '../helpers/compiled.js';
+import { ensureBuilt, ROOT, runBin } from '../helpers/compiled.js';
 import { tempDir } from '../helpers/tempDir.js';
 import { testMap } from '../io/fitsMutate.js';
 
 const dir = tempDir('skyspan-compiled-');
 const HEAVY = ['mathjs', 'd3-geo', 'd3-geo-projection', 'd3-scale', 'd3-scale-chromatic', 'pngjs', 'zod', 'yaml', 'cli-progress'];
-// Prints every package the program resolves, one line each, on stderr.
+// Prints every file of the bundle (dist/bin/) and every package the program resolves, one line each, on stderr.
 const HOOK = 'data:text/javascript,' + encodeURIComponent(`import { register } from 'node:module';
 register('data:text/javascript,' + encodeURIComponent(\`export async function resolve(s, c, next) {
   const r = await next(s, c);
   const m = /node_modules\\\\/((?:@[^/]+\\\\/)?[^/]+)/.exec(r.url);
   if (m) process.stderr.write('package loaded: ' + m[1] + '\\\\n');
+  const b = /\\\\/dist\\\\/bin\\\\/([^/]+\\\\.js)$/.exec(r.url);
+  if (b) process.stderr.write('bundle file loaded: ' + b[1] + '\\\\n');
   return r;
 }\`));`);
-const loadedPackages = (stderr: string) => [...new Set([...stderr.matchAll(/^package loaded: (\S+)$/gm)].map((m) => m[1]))];
+/**
+ * The packages a run loaded: those resolved from node_modules, and those bundled
+ * into the files of dist/bin/ it loaded (dist/bin/meta.json, written by the build).
+ */
+function loadedPackages(stderr: string): string[] {
+  const meta = JSON.parse(readFileSync(join(ROOT, 'dist/bin/meta.json'), 'utf8')) as { outputs: Record<string, { packages: string[] }> };
+  const files = [...stderr.matchAll(/^bundle file loaded: (\S+)$/gm)].map((m) => m[1]);
+  const external = [...stderr.matchAll(/^package loaded: (\S+)$/gm)].map((m) => m[1]);
+  return [...new Set([...external, ...files.flatMap((f) => meta.outputs[f]?.packages ?? [`unknown bundle file ${f}`])])].sort();
+}
+const bundleFiles = (stderr: string) => [...stderr.matchAll(/^bundle file loaded: (\S+)$/gm)].map((m) => m[1]);
 
 beforeAll(() => ensureBuilt(), 180_000);
 
@@ -35,6 +47,7 @@ describe('the compiled command (node bin/skyspan.js)', () => {
     const r = await runBin(['--version'], { nodeArgs: ['--import', HOOK] });
     expect(r.code).toBe(0);
     expect(r.stdout).toBe(`${VERSION}\n`);
+    expect(bundleFiles(r.stderr).length).toBeGreaterThan(0); // the hook sees the bundle
     expect(loadedPackages(r.stderr)).toEqual([]);
   });
 

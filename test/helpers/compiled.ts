@@ -1,6 +1,7 @@
 /**
- * The compiled command for tests: `ensureBuilt()` runs `tsc -p
- * tsconfig.build.json` when dist/ is missing or older than a source file, and
+ * The compiled command for tests: `ensureBuilt()` runs the build (`tsc -p
+ * tsconfig.build.json`, then scripts/bundle-cli.mjs) when dist/ is missing or
+ * older than a source file, and
  * `runBin(argv)` runs `node bin/skyspan.js` as a user would, with its exit
  * code, stdout and stderr.
  */
@@ -23,12 +24,13 @@ function newestMtimeMs(dir: string): number {
   return t;
 }
 
-/** Builds dist/ unless it is newer than every file under src/ (and tsconfig.build.json). */
+/** Builds dist/ (tsc, then the command bundle in dist/bin/) unless it is newer than every file under src/ and the build's own files. */
 export function ensureBuilt(): void {
-  const stamp = join(ROOT, 'dist/cli/program.js');
-  const sources = Math.max(newestMtimeMs(join(ROOT, 'src')), statSync(join(ROOT, 'tsconfig.build.json')).mtimeMs);
+  const stamp = join(ROOT, 'dist/bin/meta.json');
+  const sources = Math.max(newestMtimeMs(join(ROOT, 'src')), ...['tsconfig.build.json', 'scripts/bundle-cli.mjs'].map((f) => statSync(join(ROOT, f)).mtimeMs));
   if (existsSync(stamp) && statSync(stamp).mtimeMs >= sources) return;
   execFileSync(process.execPath, [join(ROOT, 'node_modules/typescript/bin/tsc'), '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'pipe' });
+  execFileSync(process.execPath, [join(ROOT, 'scripts/bundle-cli.mjs')], { cwd: ROOT, stdio: 'pipe' });
 }
 
 /** What a finished run of the command gave. */
