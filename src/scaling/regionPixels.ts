@@ -44,8 +44,13 @@ export interface RegionPixels {
   readonly full: boolean;
   /** RING indices of the pixels with fraction > 0, increasing (empty when full). */
   readonly index: Uint32Array;
-  /** Covered fraction of each listed pixel. */
-  readonly fraction: Float32Array;
+  /**
+   * Covered fraction of each listed pixel, or null when every listed pixel is
+   * covered fully (f = 1, as always in pixel-centre coverage): the kernels then
+   * use 1, and no list of ones is written (at Nside 2048 a band of |b| < 4 deg
+   * lists 3.5M pixels, whose ones cost 14 MB of fresh memory).
+   */
+  readonly fraction: Float32Array | null;
   /** Relative exposure of each listed pixel, or null (unweighted). */
   readonly exposure: Float32Array | null;
   /** Sum of the covered fractions, in pixels (12 Nside^2 when full). */
@@ -81,7 +86,7 @@ export function toRegionPixels(w: RegionWeightsLike, useExposure = true): Region
   // pixel runs [a, b) to read: one per ring with ring bounds, else the whole map in blocks;
   // each run goes through a small kernel (compiled early as a hot function; same order of additions)
   const runs = spans ? rings.count : Math.ceil(npix / BLOCK);
-  const st = new Float64Array(4); // [sum, compensation (Neumaier 1974), count of f > 0, bad pixel or -1]
+  const st = new Float64Array(5); // [sum, compensation (Neumaier 1974), count of f > 0, bad pixel or -1, count of f = 1]
   let allOne = e === null;
   for (let r = 0; r < runs; r++) {
     if (spans) {
@@ -104,7 +109,7 @@ export function toRegionPixels(w: RegionWeightsLike, useExposure = true): Region
   const base = { name: w.name, nside: w.nside, frame: w.frame, mode: w.mode, notes: [...w.notes] };
   if (allOne) return { ...wholeSkyPixels(w.name, w.nside, w.frame, w.mode), notes: base.notes };
   const index = new Uint32Array(n);
-  const fraction = new Float32Array(n);
+  const fraction = st[4] === n ? null : new Float32Array(n);
   const exposure = e ? new Float32Array(n) : null;
   let k = 0;
   for (let r = 0; r < runs; r++) {
@@ -125,11 +130,12 @@ const BLOCK = 16384;
 
 /**
  * Checks f[a..b) and adds its positive values to the compensated sum in st
- * (st[0] sum, st[1] compensation, st[2] count); st[3] gets the first pixel
- * outside 0..1 (else -1). Returns whether every value was exactly 1.
+ * (st[0] sum, st[1] compensation, st[2] count, st[4] count of values exactly
+ * 1); st[3] gets the first pixel outside 0..1 (else -1). Returns whether every
+ * value was exactly 1.
  */
 function scanRun(f: Float32Array, a: number, b: number, st: Float64Array): boolean {
-  let sum = st[0], comp = st[1], n = st[2], allOne = true;
+  let sum = st[0], comp = st[1], n = st[2], ones = st[4], allOne = true;
   st[3] = -1;
   for (let p = a; p < b; p++) {
     const v = f[p];
@@ -140,25 +146,25 @@ function scanRun(f: Float32Array, a: number, b: number, st: Float64Array): boole
       if (Math.abs(sum) >= v) comp += (sum - t) + v; else comp += (v - t) + sum;
       sum = t;
     }
-    if (v !== 1) allOne = false;
+    if (v !== 1) allOne = false; else ones++;
   }
-  st[0] = sum; st[1] = comp; st[2] = n;
+  st[0] = sum; st[1] = comp; st[2] = n; st[4] = ones;
   return allOne;
 }
 
 /**
- * Appends the pixels of f[a..b) with f > 0 (index, fraction, exposure) from
- * slot k on; returns the next slot. st[3] gets the first pixel whose exposure
+ * Appends the pixels of f[a..b) with f > 0 (index, fraction unless null,
+ * exposure) from slot k on; returns the next slot. st[3] gets the first pixel whose exposure
  * is negative or not finite (else -1).
  */
 function collectRun(f: Float32Array, e: Float32Array | null, a: number, b: number, index: Uint32Array,
-  fraction: Float32Array, exposure: Float32Array | null, k: number, st: Float64Array): number {
+  fraction: Float32Array | null, exposure: Float32Array | null, k: number, st: Float64Array): number {
   st[3] = -1;
   for (let p = a; p < b; p++) {
     const v = f[p];
     if (v > 0) {
       index[k] = p;
-      fraction[k] = v;
+      if (fraction) fraction[k] = v;
       if (exposure) {
         const x = e![p];
         if (!(x >= 0 && x < Infinity)) { st[3] = p; return k; }

@@ -79,9 +79,10 @@ export const ST_LENGTH = 15;
 /**
  * The loop of {@link regionSums} over list entries k0..k1-1, continuing the
  * state in st; pixel p's value is plane[p - base] (a window of a streamed
- * plane starts at pixel `base`; 0 for a whole plane).
+ * plane starts at pixel `base`; 0 for a whole plane). A null `fr` (or `oFr`
+ * with `oIdx`) means every listed pixel is covered fully (f = 1).
  */
-export function sumBlock(plane: MapArray, base: number, nside: number, nested: boolean, idx: Uint32Array, fr: Float32Array, ex: Float32Array | null,
+export function sumBlock(plane: MapArray, base: number, nside: number, nested: boolean, idx: Uint32Array, fr: Float32Array | null, ex: Float32Array | null,
   oIdx: Uint32Array | null, oFr: Float32Array | null, crossAll: boolean, k0: number, k1: number, st: Float64Array): void {
   const oN = oIdx ? oIdx.length : 0;
   let sWF = st[0], cWF = st[1], sWFT = st[2], cWFT = st[3], sF = st[4], cF = st[5], sFT = st[6], cFT = st[7], sX = st[8], cX = st[9];
@@ -89,7 +90,7 @@ export function sumBlock(plane: MapArray, base: number, nside: number, nested: b
   for (let k = k0; k < k1; k++) {
     const p = idx[k];
     const v = plane[(nested ? ringToNest(nside, p) : p) - base];
-    const f = fr[k];
+    const f = fr === null ? 1 : fr[k];
     if (!(v - v === 0) || (v >= BLANK_LO && v <= BLANK_HI)) {
       blankCount++;
       blankF += f;
@@ -115,7 +116,7 @@ export function sumBlock(plane: MapArray, base: number, nside: number, nested: b
     if (crossAll) fo = 1;
     else if (oIdx) {
       while (j < oN && oIdx[j] < p) j++;
-      if (j < oN && oIdx[j] === p) fo = oFr![j];
+      if (j < oN && oIdx[j] === p) fo = oFr === null ? 1 : oFr[j];
     }
     if (fo > 0) {
       const x = ft * fo;

@@ -21,13 +21,13 @@ export function inNestedOrder(r: RegionPixels): RegionPixels {
   const nest = new Uint32Array(n);
   for (let k = 0; k < n; k++) nest[k] = ringToNest(nside, r.index[k]);
   nest.sort();
-  const fraction = new Float32Array(n);
+  const fraction = r.fraction ? new Float32Array(n) : null;
   const exposure = r.exposure ? new Float32Array(n) : null;
   for (let k = 0; k < n; k++) {
     const ring = nestToRing(nside, nest[k]);
     let lo = 0, hi = n - 1; // the RING list is increasing: binary search
     while (lo < hi) { const mid = (lo + hi) >>> 1; if (r.index[mid] < ring) lo = mid + 1; else hi = mid; }
-    fraction[k] = r.fraction[lo];
+    if (fraction) fraction[k] = r.fraction![lo];
     if (exposure) exposure[k] = r.exposure![lo];
   }
   return { ...r, index: nest, fraction, exposure };

@@ -53,7 +53,7 @@ describe('ring spans of evaluated regions', () => {
             expect(a.pixelCount).toBe(b.pixelCount);
             expect(a.solidAngleSr).toBe(b.solidAngleSr);
             expect(Array.from(a.index)).toEqual(Array.from(b.index));
-            expect(Array.from(a.fraction)).toEqual(Array.from(b.fraction));
+            expect(a.fraction === null ? null : Array.from(a.fraction)).toEqual(b.fraction === null ? null : Array.from(b.fraction));
             expect(a.exposure === null ? null : Array.from(a.exposure)).toEqual(b.exposure === null ? null : Array.from(b.exposure));
             checked++;
           }
@@ -61,5 +61,36 @@ describe('ring spans of evaluated regions', () => {
     }
     expect(problems).toEqual([]);
     expect(checked).toBeGreaterThan(300);
+  });
+});
+
+describe('regions covered fully in every listed pixel', () => {
+  it('have no list of ones, and their sums equal those with an explicit list of ones', async () => {
+    // The null list stands for f = 1 (regionPixels.ts): the identity of the kernels with a list of ones
+    // (common practice, no source). Centre coverage gives ones only; fractional coverage of a box does not.
+    const { regionSums, SUMS_LENGTH } = await import('../../src/scaling/regionSums.js');
+    const doc = parseRegionDocument(docs[2][0]);
+    const nside = 64, npix = 12 * nside * nside;
+    const plane = Float64Array.from({ length: npix }, (_, p) => 1 + Math.sin(p * 0.37) ** 2 + (p % 97 === 0 ? NaN : 0));
+    const ones = (r: ReturnType<typeof toRegionPixels>) => ({ ...r, fraction: new Float32Array(r.index.length).fill(1) });
+    let compared = 0;
+    for (const name of ['a', 'b', 'h', 'e']) {
+      const r = toRegionPixels(evaluateRegion(doc, name, { nside, frame: 'galactic', mode: 'centre' }), true);
+      expect(r.fraction).toBeNull();
+      expect(r.index.length).toBeGreaterThan(0);
+      for (const other of [null, toRegionPixels(evaluateRegion(doc, 'c', { nside, frame: 'galactic', mode: 'centre' }), false),
+        toRegionPixels(evaluateRegion(doc, 'a', { nside, frame: 'galactic', mode: 'fraction' }), false)]) {
+        for (const [x, y] of [[r, other], [other, r]] as const) {
+          if (!x) continue;
+          const got = new Float64Array(SUMS_LENGTH), want = new Float64Array(SUMS_LENGTH);
+          regionSums(plane, nside, false, x, y, got);
+          regionSums(plane, nside, false, x.fraction ? x : ones(x), y ? (y.fraction ? y : ones(y)) : null, want);
+          expect(Array.from(got)).toEqual(Array.from(want));
+          compared++;
+        }
+      }
+    }
+    expect(compared).toBe(20);
+    expect(toRegionPixels(evaluateRegion(doc, 'a', { nside, frame: 'galactic', mode: 'fraction' }), true).fraction).not.toBeNull();
   });
 });
