@@ -201,7 +201,8 @@ export function drawGraticule(raster: Raster, view: SkyView, at: AreaPlacement, 
   const side = createLayer(raster.width, raster.height);
   for (let B = Math.ceil((-90 + eps) / steps.latStepDeg) * steps.latStepDeg; B < 90 - eps; B += steps.latStepDeg) {
     if (!view.project(degToRad(c + 180 - 1e-6), degToRad(B), p)) continue;
-    layerText(side, latLabel(B), at.ox + p[0] - 6 * at.u, at.oy + p[1] + size / 2, size, 'end');
+    // 12 units clear of the rim: region outlines that reach the rim at b = 0 (a band, a box across l = 180) stay clear of "0°"
+    layerText(side, latLabel(B), at.ox + p[0] - 12 * at.u, at.oy + p[1] + size / 2, size, 'end');
   }
   compositeLayer(raster, side, 0x30343a, 1);
 }

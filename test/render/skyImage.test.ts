@@ -148,3 +148,18 @@ describe('Mollweide sky picture', () => {
     expect(() => renderSkyMap(map, { width: 100 })).toThrow(/width is 100/);
   });
 });
+
+describe('latitude labels of the full-sky picture', () => {
+  it('"0°" stands at least 10 px clear of the rim, where outlines of a band or a box across l = 180 end', () => {
+    // Legibility (common practice, no source): a label must not touch the drawing next to it. The rim's
+    // leftmost point is the equator at the picture area's left edge (Mollweide: x = 0 at l = 180 deg).
+    const map = fieldMap(8, () => 1);
+    const img = renderSkyMap(map, { width: 1200, scale: 'linear', min: 0, max: 2 });
+    const d = decode(img.png);
+    const cy = img.areaTop + Math.round(img.view.height / 2), bg = pixelAt(d, 1, cy);
+    let inkRight = -1;
+    for (let j = cy - 12; j <= cy + 12; j++) for (let i = 0; i < img.areaLeft - 2; i++) if (pixelAt(d, i, j) !== bg) inkRight = Math.max(inkRight, i);
+    expect(inkRight).toBeGreaterThan(0); // the label is there
+    expect(img.areaLeft - inkRight).toBeGreaterThanOrEqual(10);
+  });
+});
