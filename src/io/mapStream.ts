@@ -52,15 +52,23 @@ export interface MapStreamResult {
 export interface StreamMapOptions {
   /** Frame to assume when the file does not state one. */
   frame?: FrameName;
-  /** Bytes of table rows decoded at a time (default 4 MiB). */
+  /** Bytes of table rows decoded at a time (default {@link DEFAULT_BLOCK_BYTES}, 256 KiB). */
   blockBytes?: number;
 }
 
 /** Pixels per window outside the table's rows (blank ranges, partial-sky maps). */
 const WINDOW = 65536;
 
+/**
+ * Bytes of table rows decoded at a time (default). Small enough that a block
+ * stays in the core's cache while it is byte-swapped, summed over the sky and
+ * over each region: 256 KiB made the Nside 2048 factor job 5 % faster than
+ * 4 MiB (whole process, 6 alternating runs each, 0.935 s against 0.99 s).
+ */
+export const DEFAULT_BLOCK_BYTES = 1 << 18;
+
 /** Bytes the reader holds while streaming `plan` with row blocks of `blockBytes` (block, plane windows, values). */
-export function streamBufferBytes(plan: MapStreamPlan, blockBytes = 1 << 22): number {
+export function streamBufferBytes(plan: MapStreamPlan, blockBytes = DEFAULT_BLOCK_BYTES): number {
   const { rows, rowBytes } = plan.layout;
   const block = Math.max(1, Math.min(rows, Math.floor(blockBytes / Math.max(1, rowBytes)))) * rowBytes;
   const pixels = Math.max(Math.min(WINDOW, plan.npix), Math.ceil(block / Math.max(1, rowBytes)) * plan.pixelsPerRow);
@@ -98,8 +106,8 @@ export async function streamFitsFile(file: string, sink: MapStreamSink, options:
       if (!plan && isHealpixHdu(hdu)) {
         plan = planMapStream(hdu, file, options.frame);
         await sink.begin(plan);
-        if (plan.scheme === 'IMPLICIT') await streamImplicit(stream, plan, sink, options.blockBytes ?? 1 << 22);
-        else await streamExplicit(stream, plan, sink, options.blockBytes ?? 1 << 22);
+        if (plan.scheme === 'IMPLICIT') await streamImplicit(stream, plan, sink, options.blockBytes ?? DEFAULT_BLOCK_BYTES);
+        else await streamExplicit(stream, plan, sink, options.blockBytes ?? DEFAULT_BLOCK_BYTES);
         await skipPadding(stream, hdu);
       } else if (!energies && hdu.kind === 'bintable' && hdu.name.toUpperCase() === ENERGIES_EXTNAME) {
         if (hdu.dataBytes > MAX_ENERGIES_BYTES) {
