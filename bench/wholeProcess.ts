@@ -116,9 +116,7 @@ const suites: Record<string, (scratch: string) => void> = {
 /** Runs the named whole-process suites (all by default). */
 export async function benchWholeProcess(names: string[] = []): Promise<void> {
   if (!existsSync(TIME)) throw new Error(`${TIME} is needed for the whole-process benchmarks (Debian package time)`);
-  // measure the current sources: the build as `npm run build` does it (library, then the command bundle)
-  execFileSync(process.execPath, [join(ROOT, 'node_modules/typescript/bin/tsc'), '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'inherit' });
-  execFileSync(process.execPath, [join(ROOT, 'scripts/bundle-cli.mjs')], { cwd: ROOT, stdio: 'inherit' });
+  execFileSync(process.execPath, [join(ROOT, 'scripts/build.mjs')], { cwd: ROOT, stdio: 'inherit' }); // measure the current sources, built as `npm run build` builds them
   console.log(`whole process (as users run it): node bin/skyspan.js (bundled dist/bin/), A B alternating, ${REPS} runs each; median (min-max); peak RSS from /usr/bin/time`);
   const scratch = mkdtempSync(join(tmpdir(), 'skyspan-bench-'));
   try {

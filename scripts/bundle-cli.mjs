@@ -1,5 +1,5 @@
-// Bundles the command line into dist/bin/ (run by `npm run build` and the
-// `prepare` script, after tsc has compiled the library into dist/).
+// Bundles the command line into dist/bin/ (the second step of scripts/build.mjs,
+// after tsc has compiled the library into dist/).
 //
 // Why: a command's module graph is about a hundred of our files plus zod's and
 // yaml's own, and Node resolves, reads and compiles each one at every run; the

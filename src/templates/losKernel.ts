@@ -77,13 +77,20 @@ export function losIntegral(k: KernelInput, cosB: number, sinB: number, cosL: nu
 }
 
 /**
- * Index of the pixel mirrored in longitude (phi -> 2 pi - phi) within a ring
- * of `len` pixels at phi0 + j dphi: phi0 is 0 or dphi / 2 in the RING scheme
- * (Gorski et al. 2005, ApJ 622, 759, eqs. 8-9), so the mirror of j is
- * len - j (mod len) or len - 1 - j.
+ * The shift of a ring whose pixels sit at phi0 + j dphi: 2 phi0 / dphi, which
+ * is 0 or 1 in the RING scheme (phi0 is 0 or dphi / 2; Gorski et al. 2005,
+ * ApJ 622, 759, eqs. 8-9). One per ring, for {@link mirrorInRing}.
  */
-export function mirrorInRing(j: number, len: number, phi0: number, dphi: number): number {
-  const shift = Math.round((2 * phi0) / dphi);
+export function ringShift(phi0: number, dphi: number): number {
+  return Math.round((2 * phi0) / dphi);
+}
+
+/**
+ * Index of the pixel mirrored in longitude (phi -> 2 pi - phi) within a ring
+ * of `len` pixels with shift `shift` ({@link ringShift}): len - j (mod len)
+ * for shift 0, len - 1 - j for shift 1.
+ */
+export function mirrorInRing(j: number, len: number, shift: number): number {
   return (len - shift - j + len) % len;
 }
 
@@ -103,10 +110,10 @@ export function integrateRings(k: KernelInput, ringFrom: number, ringStride: num
   const acc = new Float64Array(nE), accPlain = new Float64Array(nE);
   for (let r = ringFrom; r < t.count; r += ringStride) {
     const cb = t.sinTheta[r], sb = t.z[r], phi0 = t.phi0[r], dphi = t.dphi[r];
-    const first = t.first[r], len = t.length[r];
+    const first = t.first[r], len = t.length[r], shift = ringShift(phi0, dphi);
     for (let j = 0; j < len; j++) {
       const pix = first + j;
-      const m = mirrorInRing(j, len, phi0, dphi);
+      const m = mirrorInRing(j, len, shift);
       if (m < j) {
         const src = first + m;
         for (let e = 0; e < nE; e++) {

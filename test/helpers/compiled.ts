@@ -1,6 +1,6 @@
 /**
- * The compiled command for tests: `ensureBuilt()` runs the build (`tsc -p
- * tsconfig.build.json`, then scripts/bundle-cli.mjs) when dist/ is missing or
+ * The compiled command for tests: `ensureBuilt()` runs the build
+ * (scripts/build.mjs: tsc, then the command bundle) when dist/ is missing or
  * older than a source file, and
  * `runBin(argv)` runs `node bin/skyspan.js` as a user would, with its exit
  * code, stdout and stderr.
@@ -27,10 +27,10 @@ function newestMtimeMs(dir: string): number {
 /** Builds dist/ (tsc, then the command bundle in dist/bin/) unless it is newer than every file under src/ and the build's own files. */
 export function ensureBuilt(): void {
   const stamp = join(ROOT, 'dist/bin/meta.json');
-  const sources = Math.max(newestMtimeMs(join(ROOT, 'src')), ...['tsconfig.build.json', 'scripts/bundle-cli.mjs'].map((f) => statSync(join(ROOT, f)).mtimeMs));
+  const build = ['tsconfig.build.json', 'scripts/build.mjs', 'scripts/bundle-cli.mjs'];
+  const sources = Math.max(newestMtimeMs(join(ROOT, 'src')), ...build.map((f) => statSync(join(ROOT, f)).mtimeMs));
   if (existsSync(stamp) && statSync(stamp).mtimeMs >= sources) return;
-  execFileSync(process.execPath, [join(ROOT, 'node_modules/typescript/bin/tsc'), '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'pipe' });
-  execFileSync(process.execPath, [join(ROOT, 'scripts/bundle-cli.mjs')], { cwd: ROOT, stdio: 'pipe' });
+  execFileSync(process.execPath, [join(ROOT, 'scripts/build.mjs')], { cwd: ROOT, stdio: 'pipe' });
 }
 
 /** What a finished run of the command gave. */
