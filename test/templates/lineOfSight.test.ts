@@ -120,7 +120,8 @@ describe('convergence and symmetry', () => {
 
   it('every pixel, mirrored in longitude or not, equals its own line-of-sight integral to 1e-12', async () => {
     // The kernel integrates half of each ring and copies the mirror (l -> -l); here each pixel is
-    // integrated on its own toward its centre, absorbed and plain, at two energies.
+    // integrated on its own toward its centre, absorbed and plain, at two energies (an identity of the
+    // implementation: the copy must equal the integral; common practice, no source).
     const s = spec(GALAXY), E = [1e4, 1e6], nside = 8;
     const built = await buildTemplate(s, { nside, oversample: 1, workers: 1, energiesGeV: E, absorption: true, attenuationLengthKpc: (e) => 9 * (1e6 / e) });
     const k = prepareIntegration(s, E, 0, (e) => 9 * (1e6 / e));
